@@ -31,7 +31,7 @@ func TemperatureSolve(stateAt func(physics.Kelvin) (State, error), target float6
 	fLo, fHi := value(sLo)-target, value(sHi)-target
 	if fLo > 0 || fHi < 0 {
 		return State{}, &physics.DomainError{Name: "target", Value: target,
-			Want: "a value reached between the model's temperature limits",
+			Want:   "a value reached between the model's temperature limits",
 			Reason: "the requested state lies outside the temperature range of the gas model"}
 	}
 	a, b := float64(lo), float64(hi)

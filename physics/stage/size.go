@@ -1,0 +1,352 @@
+package stage
+
+import (
+	"fmt"
+	"math"
+
+	"stagewright/physics"
+	"stagewright/physics/gas"
+)
+
+// InletKind says how the gas reaches the impeller blades.
+type InletKind string
+
+// Inlet kinds.
+const (
+	// InletRadial: the gas meets the blades at diameter D1 = ratio·D2 across
+	// a blade width b1 found from continuity (radial-inflow blade row).
+	InletRadial InletKind = "radial"
+	// InletAxialEye: the gas enters axially through an annular eye of hub
+	// ratio ν = Dh/D1t whose tip diameter D1t follows from continuity.
+	InletAxialEye InletKind = "axial-eye"
+)
+
+// MaxTipDiameter bounds the impellers the sizing covers (m). The largest
+// process impellers are about 2.5 m (common practice, no source); a duty
+// that needs more at the given speed cannot be made by one stage at that
+// speed.
+const MaxTipDiameter physics.Meter = 4.0
+
+// DefaultImpellerLossShare is the fraction of the stage loss taken to arise
+// in the impeller when the exit static state is found: half, following
+// Saravanamuttoo et al., Gas Turbine Theory (2009), Example 4.1 (from
+// memory), i.e. η_imp = 1 − 0.5 (1 − η_stage).
+const DefaultImpellerLossShare = 0.5
+
+// Inlet is the inlet configuration.
+type Inlet struct {
+	Kind InletKind
+	// DiameterRatio is D1/D2 for a radial inlet, 0 < ratio < 1.
+	DiameterRatio float64
+	// HubRatio is Dh/D1t for an axial eye, 0 ≤ ν < 1.
+	HubRatio float64
+	// MeridionalVelocity is cm1 entering the blades, m/s (no pre-whirl).
+	MeridionalVelocity physics.MeterPerS
+}
+
+// Impeller is the blading of the impeller.
+type Impeller struct {
+	BladeExitAngle         float64 // β2', deg from radial, backsweep positive
+	SlipFactor             float64 // σ = 1 − Δcθ/U2
+	PowerInputFactor       float64 // ψ ≥ 1
+	ExitMeridionalVelocity physics.MeterPerS
+}
+
+// Duty is what the stage must do, with the compression path already solved.
+type Duty struct {
+	Model   gas.Model
+	Suction gas.State // suction stagnation state
+	// Work is the actual specific work h02 − h01, J/kg.
+	Work physics.JoulePerKg
+	// IsentropicHead and PolytropicHead, J/kg, for the head coefficients.
+	IsentropicHead physics.JoulePerKg
+	PolytropicHead physics.JoulePerKg
+	// IsentropicEfficiency is the stage total-to-total efficiency.
+	IsentropicEfficiency float64
+	// ImpellerLossShare is the fraction of the stage loss in the impeller
+	// (0 ≤ share ≤ 1; use DefaultImpellerLossShare).
+	ImpellerLossShare float64
+	MassFlow          physics.KgPerS
+	Speed             physics.RevPerMin
+}
+
+// Station is a static state with its velocity.
+type Station struct {
+	Static gas.State
+	// Velocity is the absolute velocity at the station, m/s.
+	Velocity physics.MeterPerS
+	// Mach is Velocity over the static speed of sound.
+	Mach float64
+}
+
+// Geometry is the sized flow path. Lengths in m.
+type Geometry struct {
+	TipDiameter physics.Meter
+	// InletDiameter is D1 (radial inlet) or the eye tip diameter D1t.
+	InletDiameter physics.Meter
+	// InletWidth is the radial-inlet blade width b1, or the blade height at
+	// the eye (D1t − Dh)/2.
+	InletWidth physics.Meter
+	// EyeHubDiameter is Dh for an axial eye, 0 otherwise.
+	EyeHubDiameter physics.Meter
+	ExitWidth      physics.Meter
+	InletArea      float64 // m2
+	ExitArea       float64 // m2
+}
+
+// Velocities are the velocity triangles, m/s and deg.
+type Velocities struct {
+	TipSpeed physics.MeterPerS
+	// InletBladeSpeed is U at D1 (radial inlet) or at the eye tip.
+	InletBladeSpeed        physics.MeterPerS
+	InletMeridional        physics.MeterPerS
+	InletRelative          physics.MeterPerS // W1 at D1 or the eye tip (shroud)
+	InletRelativeMach      float64           // W1/a1 at D1 or the eye tip
+	InletBladeAngleShroud  float64           // relative flow angle from meridional at D1 or eye tip, deg
+	InletBladeAngleMean    float64           // at the rms eye diameter (axial eye), deg
+	InletBladeAngleHub     float64           // at the eye hub (axial eye), deg
+	ExitMeridional         physics.MeterPerS // cr2
+	ExitWhirl              physics.MeterPerS // cθ2
+	ExitAbsolute           physics.MeterPerS // c2
+	ExitRelative           physics.MeterPerS // W2
+	ExitAbsoluteMach       float64           // c2/a2 (diffuser inlet)
+	ExitFlowAngle          float64           // α2 from radial, deg
+	RelativeVelocityRatio  float64           // W2/W1 (shroud), de Haller-type ratio
+	MachineMach            float64           // U2/a01
+	FlowCoefficientExit    float64           // φ2 = cr2/U2
+	ImpellerIsentropicEff  float64           // η of the impeller alone (loss share model)
+	ExitStagnationPressure physics.Pascal
+}
+
+// Coefficients are the non-dimensional groups of the stage.
+type Coefficients struct {
+	// FlowCoefficient φ = Q01 / (U2 π D2²/4), Q01 the suction volume flow.
+	FlowCoefficient float64
+	// WorkCoefficient is w / U2².
+	WorkCoefficient float64
+	// PolytropicHeadCoefficient μp is Hp / U2².
+	PolytropicHeadCoefficient float64
+	// SpecificSpeed Ns = Ω √Q01 / Δh_s^0.75 (Ω in rad/s).
+	SpecificSpeed float64
+	// ExitWidthRatio is b2/D2.
+	ExitWidthRatio float64
+	// InletTipRatio is D1/D2 (or D1t/D2).
+	InletTipRatio float64
+}
+
+// Sizing is the sized stage.
+type Sizing struct {
+	Geometry     Geometry
+	Velocities   Velocities
+	Coefficients Coefficients
+	Inlet        Station   // static state entering the blades
+	Exit         Station   // static state at impeller exit
+	ExitTotal    gas.State // stagnation state at impeller exit
+	SuctionFlow  float64   // m3/s at suction stagnation
+}
+
+// Size sizes the impeller for duty d with blading imp and inlet in:
+//
+//  1. U2 from the Euler equation with slip and power input factor
+//     (TipSpeed); D2 = 60 U2/(π N).
+//  2. Inlet static state: h1 = h01 − cm1²/2 at s01 (no pre-whirl); flow
+//     area A1 = ṁ/(ρ1 cm1). Radial inlet: D1 = ratio·D2, b1 = A1/(π D1).
+//     Axial eye: D1t = √(4 A1 / (π (1 − ν²))), Dh = ν D1t.
+//  3. Impeller exit: h02 = h01 + w; the impeller has isentropic efficiency
+//     η_imp = 1 − share (1 − η_stage), so p02 is the pressure at
+//     (h01 + η_imp w, s01); the static state is h2 = h02 − c2²/2 at s(p02,
+//     h02), c2² = cr2² + cθ2²; b2 = ṁ/(ρ2 cr2 π D2) (no blade blockage).
+//
+// Sources: continuity and velocity triangles, Saravanamuttoo et al., Gas
+// Turbine Theory, 6th ed. (2009), §4.2-4.3 (the inlet static-density
+// iteration and the impeller depth from the exit density); Dixon & Hall
+// (2014), §7.4-7.9. Valid within the checks below; geometry the service
+// cannot size (eye larger than the impeller, impeller over 4 m) is a
+// DomainError whose Reason says what to change.
+func Size(d Duty, imp Impeller, in Inlet) (Sizing, error) {
+	if err := checkDuty(d); err != nil {
+		return Sizing{}, err
+	}
+	u2, err := TipSpeed(d.Work, imp.SlipFactor, imp.PowerInputFactor, imp.BladeExitAngle, imp.ExitMeridionalVelocity)
+	if err != nil {
+		return Sizing{}, err
+	}
+	if !(imp.ExitMeridionalVelocity > 0) {
+		return Sizing{}, &physics.DomainError{Name: "exit_meridional_velocity", Value: float64(imp.ExitMeridionalVelocity),
+			Want: "> 0 m/s", Reason: "the exit meridional velocity must be positive: it carries the flow out of the impeller"}
+	}
+	d2, err := TipDiameter(u2, d.Speed)
+	if err != nil {
+		return Sizing{}, err
+	}
+	if d2 > MaxTipDiameter {
+		return Sizing{}, &physics.DomainError{Name: "speed", Value: float64(d.Speed), Want: "a speed giving D2 <= 4 m",
+			Reason: fmt.Sprintf("the speed is too low for this head: at %.0f rev/min the impeller would need a tip diameter of %.2f m to reach the tip speed of %.0f m/s that the work requires; no single stage of at most %.0f m makes this head at this speed: raise the speed or split the head over more stages",
+				float64(d.Speed), float64(d2), float64(u2), float64(MaxTipDiameter))}
+	}
+	var out Sizing
+	out.SuctionFlow = float64(d.MassFlow) / float64(d.Suction.Density)
+	out.Geometry.TipDiameter = d2
+	v := &out.Velocities
+	v.TipSpeed = u2
+	v.MachineMach = float64(u2) / float64(d.Suction.SoundSpeed)
+
+	if err := sizeInlet(d, in, &out); err != nil {
+		return Sizing{}, err
+	}
+	if err := sizeExit(d, imp, &out); err != nil {
+		return Sizing{}, err
+	}
+
+	c := &out.Coefficients
+	area2 := math.Pi * float64(d2) * float64(d2) / 4
+	c.FlowCoefficient = out.SuctionFlow / (float64(u2) * area2)
+	c.WorkCoefficient = float64(d.Work) / (float64(u2) * float64(u2))
+	c.PolytropicHeadCoefficient = float64(d.PolytropicHead) / (float64(u2) * float64(u2))
+	if d.IsentropicHead > 0 {
+		omega := float64(d.Speed) * 2 * math.Pi / 60
+		c.SpecificSpeed = omega * math.Sqrt(out.SuctionFlow) / math.Pow(float64(d.IsentropicHead), 0.75)
+	}
+	c.ExitWidthRatio = float64(out.Geometry.ExitWidth) / float64(d2)
+	c.InletTipRatio = float64(out.Geometry.InletDiameter) / float64(d2)
+	if !sizingFinite(out) {
+		return Sizing{}, &physics.DomainError{Name: "duty", Value: float64(d.Work), Want: "a finite sized stage",
+			Reason: "the stage sizing did not give finite numbers for this duty"}
+	}
+	return out, nil
+}
+
+func checkDuty(d Duty) error {
+	switch {
+	case d.Model == nil:
+		return &physics.DomainError{Name: "gas", Want: "a gas model", Reason: "no gas model was given"}
+	case !(d.Suction.Density > 0) || !(d.Suction.SoundSpeed > 0):
+		return &physics.DomainError{Name: "suction", Value: float64(d.Suction.Density), Want: "a suction state with density and sound speed"}
+	case !(d.MassFlow > 0) || math.IsInf(float64(d.MassFlow), 0):
+		return &physics.DomainError{Name: "flow", Value: float64(d.MassFlow), Want: "finite, > 0 kg/s",
+			Reason: "the flow must be positive"}
+	case !(d.Speed > 0) || math.IsInf(float64(d.Speed), 0):
+		return &physics.DomainError{Name: "speed", Value: float64(d.Speed), Want: "finite, > 0 rev/min",
+			Reason: "the rotational speed must be a positive number of rev/min"}
+	case !(d.IsentropicEfficiency > 0 && d.IsentropicEfficiency <= 1):
+		return &physics.DomainError{Name: "efficiency", Value: d.IsentropicEfficiency, Want: "0 < efficiency <= 1"}
+	case !(d.ImpellerLossShare >= 0 && d.ImpellerLossShare <= 1):
+		return &physics.DomainError{Name: "impeller_loss_share", Value: d.ImpellerLossShare, Want: "0 <= share <= 1"}
+	}
+	return nil
+}
+
+func sizeInlet(d Duty, in Inlet, out *Sizing) error {
+	cm := in.MeridionalVelocity
+	if !(cm > 0) || math.IsInf(float64(cm), 0) {
+		return &physics.DomainError{Name: "inlet.meridional_velocity", Value: float64(cm), Want: "finite, > 0 m/s",
+			Reason: "the inlet meridional velocity must be positive"}
+	}
+	st, err := gas.StaticState(d.Model, d.Suction, cm)
+	if err != nil {
+		return fmt.Errorf("inlet static state: %w", err)
+	}
+	a1 := float64(d.MassFlow) / (float64(st.Density) * float64(cm))
+	g := &out.Geometry
+	v := &out.Velocities
+	g.InletArea = a1
+	d2 := g.TipDiameter
+	switch in.Kind {
+	case InletRadial:
+		if !(in.DiameterRatio > 0 && in.DiameterRatio < 1) {
+			return &physics.DomainError{Name: "inlet.diameter_ratio", Value: in.DiameterRatio, Want: "0 < D1/D2 < 1",
+				Reason: "the inlet diameter ratio D1/D2 must lie between 0 and 1"}
+		}
+		g.InletDiameter = physics.Meter(in.DiameterRatio) * d2
+		g.InletWidth = physics.Meter(a1 / (math.Pi * float64(g.InletDiameter)))
+	case InletAxialEye:
+		nu := in.HubRatio
+		if !(nu >= 0 && nu < 0.95) {
+			return &physics.DomainError{Name: "inlet.hub_ratio", Value: nu, Want: "0 <= hub_ratio < 0.95",
+				Reason: "the eye hub ratio (hub over eye tip diameter) must lie in [0, 0.95)"}
+		}
+		dt := math.Sqrt(4 * a1 / (math.Pi * (1 - nu*nu)))
+		g.InletDiameter = physics.Meter(dt)
+		g.EyeHubDiameter = physics.Meter(nu * dt)
+		g.InletWidth = physics.Meter((dt - nu*dt) / 2)
+		if g.InletDiameter >= d2 {
+			return &physics.DomainError{Name: "speed", Value: float64(d.Speed), Want: "an eye smaller than the impeller",
+				Reason: fmt.Sprintf("the speed is too high for this flow: the eye needs a tip diameter of %.3f m, but at %.0f rev/min the impeller tip diameter is only %.3f m; lower the speed or raise the inlet meridional velocity",
+					float64(g.InletDiameter), float64(d.Speed), float64(d2))}
+		}
+		um := PeripheralSpeed(physics.Meter(math.Sqrt((dt*dt+nu*nu*dt*dt)/2)), d.Speed)
+		uh := PeripheralSpeed(g.EyeHubDiameter, d.Speed)
+		v.InletBladeAngleMean = math.Atan2(float64(um), float64(cm)) * 180 / math.Pi
+		v.InletBladeAngleHub = math.Atan2(float64(uh), float64(cm)) * 180 / math.Pi
+	default:
+		return &physics.DomainError{Name: "inlet.type", Want: `"radial" or "axial-eye"`,
+			Reason: fmt.Sprintf("unknown inlet type %q: use \"radial\" or \"axial-eye\"", in.Kind)}
+	}
+	u1 := PeripheralSpeed(g.InletDiameter, d.Speed)
+	w1 := math.Hypot(float64(cm), float64(u1))
+	v.InletBladeSpeed = u1
+	v.InletMeridional = cm
+	v.InletRelative = physics.MeterPerS(w1)
+	v.InletRelativeMach = w1 / float64(st.SoundSpeed)
+	v.InletBladeAngleShroud = math.Atan2(float64(u1), float64(cm)) * 180 / math.Pi
+	if in.Kind == InletRadial {
+		v.InletBladeAngleMean = v.InletBladeAngleShroud
+		v.InletBladeAngleHub = v.InletBladeAngleShroud
+	}
+	out.Inlet = Station{Static: st, Velocity: cm, Mach: float64(cm) / float64(st.SoundSpeed)}
+	return nil
+}
+
+func sizeExit(d Duty, imp Impeller, out *Sizing) error {
+	v := &out.Velocities
+	u2 := v.TipSpeed
+	cr2 := imp.ExitMeridionalVelocity
+	ct2 := Whirl(u2, imp.SlipFactor, imp.BladeExitAngle, cr2)
+	c2 := math.Hypot(float64(cr2), float64(ct2))
+	etaImp := 1 - d.ImpellerLossShare*(1-d.IsentropicEfficiency)
+	h01 := d.Suction.Enthalpy
+	ideal, err := gas.StateFromHS(d.Model, h01+physics.JoulePerKg(etaImp)*d.Work, d.Suction.Entropy, d.Suction.Pressure)
+	if err != nil {
+		return fmt.Errorf("impeller exit total pressure: %w", err)
+	}
+	p02 := ideal.Pressure
+	total, err := d.Model.StateFromPH(p02, h01+d.Work)
+	if err != nil {
+		return fmt.Errorf("impeller exit total state: %w", err)
+	}
+	st, err := gas.StaticState(d.Model, total, physics.MeterPerS(c2))
+	if err != nil {
+		return fmt.Errorf("impeller exit static state: %w", err)
+	}
+	d2 := out.Geometry.TipDiameter
+	a2 := float64(d.MassFlow) / (float64(st.Density) * float64(cr2))
+	out.Geometry.ExitArea = a2
+	out.Geometry.ExitWidth = physics.Meter(a2 / (math.Pi * float64(d2)))
+	w2 := math.Hypot(float64(cr2), float64(u2)-float64(ct2))
+	v.ExitMeridional = cr2
+	v.ExitWhirl = ct2
+	v.ExitAbsolute = physics.MeterPerS(c2)
+	v.ExitRelative = physics.MeterPerS(w2)
+	v.ExitAbsoluteMach = c2 / float64(st.SoundSpeed)
+	v.ExitFlowAngle = math.Atan2(float64(ct2), float64(cr2)) * 180 / math.Pi
+	v.RelativeVelocityRatio = w2 / float64(v.InletRelative)
+	v.FlowCoefficientExit = float64(cr2) / float64(u2)
+	v.ImpellerIsentropicEff = etaImp
+	v.ExitStagnationPressure = p02
+	out.Exit = Station{Static: st, Velocity: physics.MeterPerS(c2), Mach: v.ExitAbsoluteMach}
+	out.ExitTotal = total
+	return nil
+}
+
+func sizingFinite(s Sizing) bool {
+	g, v, c := s.Geometry, s.Velocities, s.Coefficients
+	return physics.Finite(float64(g.TipDiameter), float64(g.InletDiameter), float64(g.InletWidth), float64(g.EyeHubDiameter),
+		float64(g.ExitWidth), g.InletArea, g.ExitArea,
+		float64(v.TipSpeed), float64(v.InletBladeSpeed), float64(v.InletRelative), v.InletRelativeMach,
+		v.InletBladeAngleShroud, v.InletBladeAngleMean, v.InletBladeAngleHub, float64(v.ExitWhirl), float64(v.ExitAbsolute),
+		float64(v.ExitRelative), v.ExitAbsoluteMach, v.ExitFlowAngle, v.RelativeVelocityRatio, v.MachineMach,
+		float64(v.ExitStagnationPressure), c.FlowCoefficient, c.WorkCoefficient, c.PolytropicHeadCoefficient,
+		c.SpecificSpeed, c.ExitWidthRatio, c.InletTipRatio, s.SuctionFlow,
+		float64(s.Inlet.Static.Temperature), float64(s.Inlet.Static.Pressure), float64(s.Inlet.Static.Density),
+		float64(s.Exit.Static.Temperature), float64(s.Exit.Static.Pressure), float64(s.Exit.Static.Density))
+}
