@@ -58,7 +58,18 @@ func TemperatureSolve(stateAt func(physics.Kelvin) (State, error), target float6
 			next = 0.5 * (a + b)
 		}
 		if math.Abs(next-t) <= 1e-11*t {
-			return stateAt(physics.Kelvin(next))
+			st, err := stateAt(physics.Kelvin(next))
+			if err != nil {
+				return State{}, err
+			}
+			// The bracket can also shrink onto a jump of value(T) (e.g. where
+			// an equation of state's vapour root ends): then no state has the
+			// target value.
+			if math.Abs(value(st)-target) > 1e-6*math.Max(1, math.Abs(target)) {
+				return State{}, &physics.DomainError{Name: "target", Value: target, Want: "a value taken by a single-phase state",
+					Reason: "no single-phase state of the gas has this value at this pressure (the model's value jumps across it, e.g. at condensation)"}
+			}
+			return st, nil
 		}
 		t = next
 	}

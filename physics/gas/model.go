@@ -39,6 +39,8 @@ type State struct {
 	SchultzX float64
 	SchultzY float64
 	Phase    Phase
+	// Validity carries notes on extrapolation and phase (zero: none).
+	Validity Validity
 }
 
 // Model is a gas property model: it returns the state at (T, P) and solves

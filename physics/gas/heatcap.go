@@ -1,0 +1,207 @@
+package gas
+
+import (
+	"math"
+
+	"stagewright/physics"
+)
+
+// CpForm names the functional form of an ideal-gas heat-capacity fit.
+type CpForm string
+
+// Forms of ideal-gas heat-capacity correlation in the catalogue.
+const (
+	// FormShomate is the NIST Chemistry WebBook Shomate equation,
+	//	cp = A + B t + C t² + D t³ + E/t²,  t = T/(1000 K),  cp in J/(mol K),
+	// with Coef = [A, B, C, D, E].
+	FormShomate CpForm = "shomate"
+	// FormPolyR is the fourth-order polynomial of Poling, Prausnitz &
+	// O'Connell, The Properties of Gases and Liquids, 5th ed. (2001),
+	// Appendix A, Section C:
+	//	cp/R = a0 + a1 T + a2 T² + a3 T³ + a4 T⁴,  T in K,
+	// with Coef = [a0, a1, a2, a3, a4] in SI (the book prints a1·10³,
+	// a2·10⁵, a3·10⁸, a4·10¹¹). A monatomic gas is a0 = 5/2, the rest 0.
+	FormPolyR CpForm = "poly-r"
+)
+
+// CpRange is one temperature range of an ideal-gas heat-capacity fit.
+type CpRange struct {
+	Form  CpForm
+	TLow  physics.Kelvin
+	THigh physics.Kelvin
+	Coef  [5]float64
+	// Source names the publication; coefficients recalled without a stored
+	// copy say "from memory".
+	Source string
+}
+
+// BlendTerm is one constituent of a pseudo-component whose ideal-gas cp is
+// the mole-fraction-weighted sum of other catalogue components.
+type BlendTerm struct {
+	Component string // catalogue id of the constituent
+	Fraction  float64
+}
+
+// HeatCapacity is the ideal-gas isobaric heat capacity of a component as a
+// function of temperature: either contiguous Ranges in ascending
+// temperature, or a Blend of other components (for the air
+// pseudo-component).
+type HeatCapacity struct {
+	Ranges []CpRange
+	Blend  []BlendTerm
+}
+
+// Extrapolation margins beyond the lowest and highest temperature of a
+// component's correlation. Inside the margin a state is computed from the
+// nearest range's formula and flagged CpExtrapolated; beyond it the models
+// return a DomainError. The margins are common practice (no source): a
+// smooth cp fit drifts by well under 1 % over 50 K below its lower limit and
+// 200 K above its upper limit for the forms used here.
+const (
+	ExtrapolationBelow physics.Kelvin = 50
+	ExtrapolationAbove physics.Kelvin = 200
+)
+
+// cpPiece is a CpRange prepared for evaluation: the enthalpy and entropy
+// integration constants make h and s° continuous at the range boundaries and
+// zero at ReferenceTemperature.
+type cpPiece struct {
+	form       CpForm
+	tLow, tTop float64
+	c          [5]float64
+	hOff, sOff float64 // J/mol and J/(mol K)
+}
+
+// cpTerm is a weighted species inside a prepared mixture (a component or a
+// constituent of a pseudo-component).
+type cpTerm struct {
+	weight float64
+	pieces []cpPiece
+}
+
+// primitive returns cp (J/(mol K)) and the antiderivatives of cp and cp/T
+// at T for one piece, without integration constants:
+//
+//	Shomate: H = 1000 (A t + B t²/2 + C t³/3 + D t⁴/4 − E/t),
+//	         S = A ln t + B t + C t²/2 + D t³/3 − E/(2t²)
+//	PolyR:   H/R = a0 T + a1 T²/2 + a2 T³/3 + a3 T⁴/4 + a4 T⁵/5,
+//	         S/R = a0 ln T + a1 T + a2 T²/2 + a3 T³/3 + a4 T⁴/4
+//
+// Source: NIST Chemistry WebBook, Shomate equation notes (Chase 1998,
+// NIST-JANAF 4th ed.); the polynomial integrals are elementary.
+func (p *cpPiece) primitive(t float64) (cp, h, s float64) {
+	c := &p.c
+	if p.form == FormShomate {
+		x := t / 1000
+		x2 := x * x
+		cp = c[0] + x*(c[1]+x*(c[2]+x*c[3])) + c[4]/x2
+		h = 1000 * (x*(c[0]+x*(c[1]/2+x*(c[2]/3+x*c[3]/4))) - c[4]/x)
+		s = c[0]*math.Log(x) + x*(c[1]+x*(c[2]/2+x*c[3]/3)) - c[4]/(2*x2)
+		return cp, h, s
+	}
+	const r = physics.UniversalGasConstant
+	cp = r * (c[0] + t*(c[1]+t*(c[2]+t*(c[3]+t*c[4]))))
+	h = r * t * (c[0] + t*(c[1]/2+t*(c[2]/3+t*(c[3]/4+t*c[4]/5))))
+	s = r * (c[0]*math.Log(t) + t*(c[1]+t*(c[2]/2+t*(c[3]/3+t*c[4]/4))))
+	return cp, h, s
+}
+
+// preparePieces turns contiguous ranges into pieces with stitched
+// integration constants so that h(Tref) = 0 and s°(Tref) = 0 and h, s° are
+// continuous at every boundary.
+func preparePieces(ranges []CpRange) []cpPiece {
+	ps := make([]cpPiece, len(ranges))
+	for i, r := range ranges {
+		ps[i] = cpPiece{form: r.Form, tLow: float64(r.TLow), tTop: float64(r.THigh), c: r.Coef}
+	}
+	tref := float64(ReferenceTemperature)
+	k0 := len(ps) - 1
+	for i := range ps {
+		if tref <= ps[i].tTop {
+			k0 = i
+			break
+		}
+	}
+	_, h0, s0 := ps[k0].primitive(tref)
+	ps[k0].hOff, ps[k0].sOff = -h0, -s0
+	for i := k0 + 1; i < len(ps); i++ {
+		tb := ps[i].tLow
+		_, hPrev, sPrev := ps[i-1].primitive(tb)
+		_, hNext, sNext := ps[i].primitive(tb)
+		ps[i].hOff = hPrev + ps[i-1].hOff - hNext
+		ps[i].sOff = sPrev + ps[i-1].sOff - sNext
+	}
+	for i := k0 - 1; i >= 0; i-- {
+		tb := ps[i].tTop
+		_, hNext, sNext := ps[i+1].primitive(tb)
+		_, hThis, sThis := ps[i].primitive(tb)
+		ps[i].hOff = hNext + ps[i+1].hOff - hThis
+		ps[i].sOff = sNext + ps[i+1].sOff - sThis
+	}
+	return ps
+}
+
+// evalPieces returns the ideal-gas cp, h and s° (J/mol, J/(mol K), at the
+// reference pressure) at t; t outside all pieces uses the nearest one.
+func evalPieces(ps []cpPiece, t float64) (cp, h, s float64) {
+	k := len(ps) - 1
+	for i := range ps {
+		if t <= ps[i].tTop {
+			k = i
+			break
+		}
+	}
+	p := &ps[k]
+	cp, h, s = p.primitive(t)
+	return cp, h + p.hOff, s + p.sOff
+}
+
+// IdealGasProperties returns the ideal-gas molar heat capacity cp
+// (J/(mol K)), enthalpy h (J/mol) and standard entropy s° (J/(mol K), at
+// ReferencePressure) of a catalogue component at temperature t, with the
+// reference state h = 0 and s° = 0 at 298.15 K, 101 325 Pa:
+//
+//	h(T) = ∫ cp dT from 298.15 K,  s°(T) = ∫ cp/T dT from 298.15 K
+//
+// The integrals are analytic per range and stitched to be continuous at
+// range boundaries. The correlation of each component and its source are in
+// Component.HeatCapacity. Valid from the lowest range limit minus
+// ExtrapolationBelow to the highest limit plus ExtrapolationAbove; inside
+// the margins the result is extrapolated and flagged with CpExtrapolated.
+func IdealGasProperties(name string, t physics.Kelvin) (cp, h, s float64, v Validity, err error) {
+	c, err := LookupComponent(name)
+	if err != nil {
+		return 0, 0, 0, 0, err
+	}
+	terms, lo, hi := componentTerms(c, 1)
+	v, err = checkIdealRange(t, lo, hi)
+	if err != nil {
+		return 0, 0, 0, 0, err
+	}
+	for _, tm := range terms {
+		cpi, hi, si := evalPieces(tm.pieces, float64(t))
+		cp += tm.weight * cpi
+		h += tm.weight * hi
+		s += tm.weight * si
+	}
+	return cp, h, s, v, nil
+}
+
+// checkIdealRange checks t against the correlation limits [lo, hi] with
+// the extrapolation margins.
+func checkIdealRange(t physics.Kelvin, lo, hi float64) (Validity, error) {
+	tt := float64(t)
+	min, max := lo-float64(ExtrapolationBelow), hi+float64(ExtrapolationAbove)
+	if min < 1 {
+		min = 1
+	}
+	if !(tt >= min) || !(tt <= max) {
+		return 0, &physics.DomainError{Name: "temperature", Value: tt, Want: "within the ideal-gas heat-capacity range",
+			Reason: "temperature " + formatK(tt) + " is outside the range of the ideal-gas heat-capacity correlations of this gas (" +
+				formatK(min) + " to " + formatK(max) + ")"}
+	}
+	if tt < lo || tt > hi {
+		return CpExtrapolated, nil
+	}
+	return 0, nil
+}
