@@ -179,10 +179,10 @@ func IdealGasProperties(name string, t physics.Kelvin) (cp, h, s float64, v Vali
 		return 0, 0, 0, 0, err
 	}
 	for _, tm := range terms {
-		cpi, hi, si := evalPieces(tm.pieces, float64(t))
-		cp += tm.weight * cpi
-		h += tm.weight * hi
-		s += tm.weight * si
+		cpk, hk, sk := evalPieces(tm.pieces, float64(t))
+		cp += tm.weight * cpk
+		h += tm.weight * hk
+		s += tm.weight * sk
 	}
 	return cp, h, s, v, nil
 }
