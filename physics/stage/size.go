@@ -316,7 +316,8 @@ func sizeExit(d Duty, imp Impeller, out *Sizing) error {
 	}
 	st, err := gas.StaticState(d.Model, total, physics.MeterPerS(c2))
 	if err != nil {
-		return fmt.Errorf("impeller exit static state: %w", err)
+		return &physics.DomainError{Name: "exit_meridional_velocity", Value: c2, Want: "a static exit temperature above 0 K",
+			Reason: fmt.Sprintf("the impeller exit velocity of %.0f m/s is so high that the static temperature at the impeller exit falls outside the gas model: lower the exit meridional velocity or the work per stage", c2)}
 	}
 	d2 := out.Geometry.TipDiameter
 	a2 := float64(d.MassFlow) / (float64(st.Density) * float64(cr2))

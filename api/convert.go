@@ -1,0 +1,195 @@
+package api
+
+import (
+	"errors"
+	"fmt"
+	"math"
+
+	"stagewright/physics"
+	"stagewright/service"
+)
+
+// dimension names what a Quantity measures, for unit parsing.
+type dimension int
+
+const (
+	dimPressure dimension = iota + 1
+	dimTemperature
+	dimMassFlow
+	dimVolumeFlow
+	dimSpeed
+	dimVelocity
+)
+
+// si returns the SI value of q (nil when q is nil). field is the dotted
+// field name, for errors.
+func si(q *Quantity, dim dimension, field string, ambient float64) (*float64, error) {
+	if q == nil {
+		return nil, nil
+	}
+	v := q.number
+	if q.isText {
+		var err error
+		v, err = parseUnit(dim, q.text, ambient)
+		if err != nil {
+			return nil, &service.InputError{Field: field, Shape: true, Err: err}
+		}
+	}
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return nil, &service.InputError{Field: field, Shape: true, Err: errors.New("the value is not a finite number")}
+	}
+	return &v, nil
+}
+
+func must(v *float64) float64 {
+	if v == nil {
+		return 0
+	}
+	return *v
+}
+
+// dutyOf converts a decoded, shape-checked request into the service duty in SI.
+func dutyOf(r StageRequest) (service.StageDuty, error) {
+	ambient := float64(physics.StandardAtmosphere)
+	if r.Suction.Ambient != nil {
+		a, err := si(r.Suction.Ambient, dimPressure, "suction.ambient", ambient)
+		if err != nil {
+			return service.StageDuty{}, err
+		}
+		ambient = *a
+		if !(ambient > 0) {
+			return service.StageDuty{}, &service.InputError{Field: "suction.ambient", Err: errors.New("the ambient pressure must be above 0 Pa absolute")}
+		}
+	}
+	d := service.StageDuty{
+		Gas: service.GasInput{Model: r.Gas.Model, Cp: r.Gas.Cp, Gamma: r.Gas.Gamma, Composition: r.Gas.Composition,
+			CompositionBasis: r.Gas.CompositionBasis, RelativeHumidity: r.Gas.RelativeHumidity, Service: r.Gas.Service},
+		PressureRatio:        r.PressureRatio,
+		IsentropicEfficiency: r.Efficiency.Isentropic,
+		PolytropicEfficiency: r.Efficiency.Polytropic,
+		MechanicalEfficiency: r.MechanicalEfficiency,
+		Impeller: service.ImpellerInput{BladeExitAngle: must(r.Impeller.BladeExitAngle), SlipFactor: must(r.Impeller.SlipFactor),
+			PowerInputFactor: r.Impeller.PowerInputFactor, Construction: r.Impeller.Construction,
+			Inlet: service.InletInput{Type: r.Impeller.Inlet.Type, DiameterRatio: r.Impeller.Inlet.DiameterRatio, HubRatio: r.Impeller.Inlet.HubRatio}},
+	}
+	for _, k := range r.Gas.BinaryInteraction {
+		d.Gas.Interactions = append(d.Gas.Interactions, service.Interaction{A: k.Pair[0], B: k.Pair[1], Kij: must(k.Kij)})
+	}
+	if r.Diffuser != nil {
+		d.Diffuser = r.Diffuser.Type
+	}
+	if r.Options != nil {
+		d.PolytropicMethod = r.Options.PolytropicMethod
+		d.ImpellerLossShare = r.Options.ImpellerLossShare
+	}
+	var err error
+	conv := func(q *Quantity, dim dimension, field string) *float64 {
+		if err != nil {
+			return nil
+		}
+		var v *float64
+		v, err = si(q, dim, field, ambient)
+		return v
+	}
+	d.SuctionPressure = must(conv(r.Suction.Pressure, dimPressure, "suction.pressure"))
+	d.SuctionTemperature = must(conv(r.Suction.Temperature, dimTemperature, "suction.temperature"))
+	d.DischargePressure = conv(r.DischargePressure, dimPressure, "discharge_pressure")
+	d.MassFlow = conv(r.Flow.Mass, dimMassFlow, "flow.mass")
+	d.ActualVolumeFlow = conv(r.Flow.ActualVolume, dimVolumeFlow, "flow.actual_volume")
+	d.Speed = must(conv(r.Speed, dimSpeed, "speed"))
+	d.Impeller.ExitMeridionalVelocity = must(conv(r.Impeller.ExitMeridionalVelocity, dimVelocity, "impeller.exit_meridional_velocity"))
+	d.Impeller.Inlet.MeridionalVelocity = must(conv(r.Impeller.Inlet.MeridionalVelocity, dimVelocity, "impeller.inlet.meridional_velocity"))
+	if err != nil {
+		return service.StageDuty{}, err
+	}
+	if !(d.SuctionPressure > 0) {
+		return service.StageDuty{}, &service.InputError{Field: "suction.pressure", Err: fmt.Errorf("the suction pressure must be above 0 Pa absolute, not %g", d.SuctionPressure)}
+	}
+	if !(d.SuctionTemperature > 0) {
+		return service.StageDuty{}, &service.InputError{Field: "suction.temperature", Err: fmt.Errorf("the suction temperature must be above 0 K, not %g K", d.SuctionTemperature)}
+	}
+	return d, nil
+}
+
+// errNotFinite marks a computed output that is NaN or ±Inf: a defect of
+// the service, never sent to a client.
+var errNotFinite = errors.New("api: a computed output is not finite")
+
+// responseOf converts a service result, refusing any non-finite number.
+func responseOf(res service.StageResult) (StageResponse, error) {
+	p, sz := res.Path, res.Sizing
+	g, v, c := sz.Geometry, sz.Velocities, sz.Coefficients
+	out := StageResponse{
+		MassFlow: res.MassFlow, SuctionVolumeFlow: res.SuctionVolumeFlow, Speed: res.Speed,
+		Discharge: DischargeOut{Pressure: float64(p.Discharge.Pressure), Temperature: float64(p.Discharge.Temperature),
+			IsentropicTemperature: float64(p.IsentropicDischarge.Temperature)},
+		Work:       float64(p.Work),
+		Head:       HeadOut{Isentropic: float64(p.IsentropicHead), Polytropic: float64(p.PolytropicHead)},
+		Efficiency: EfficiencyOut{Isentropic: p.IsentropicEfficiency, Polytropic: p.PolytropicEfficiency},
+		Power: PowerOut{Gas: res.Power.Gas, Shaft: res.Power.Shaft, MechanicalEfficiency: res.Power.MechanicalEfficiency,
+			DriverRating: res.Power.DriverRating, DriverMargin: res.Power.DriverMargin},
+		Velocities: VelocitiesOut{TipSpeed: float64(v.TipSpeed), InletBladeSpeed: float64(v.InletBladeSpeed),
+			InletMeridional: float64(v.InletMeridional), InletRelative: float64(v.InletRelative), InletRelativeMach: v.InletRelativeMach,
+			InletBladeAngleShroud: v.InletBladeAngleShroud, InletBladeAngleMean: v.InletBladeAngleMean, InletBladeAngleHub: v.InletBladeAngleHub,
+			ExitMeridional: float64(v.ExitMeridional), ExitWhirl: float64(v.ExitWhirl), ExitAbsolute: float64(v.ExitAbsolute),
+			ExitRelative: float64(v.ExitRelative), ExitAbsoluteMach: v.ExitAbsoluteMach, ExitFlowAngle: v.ExitFlowAngle,
+			RelativeVelocityRatio: v.RelativeVelocityRatio, MachineMach: v.MachineMach},
+		Geometry: GeometryOut{TipDiameter: float64(g.TipDiameter), InletDiameter: float64(g.InletDiameter),
+			InletWidth: float64(g.InletWidth), ExitWidth: float64(g.ExitWidth)},
+		Coefficients: CoefficientsOut{Flow: c.FlowCoefficient, ExitFlow: v.FlowCoefficientExit, Work: c.WorkCoefficient,
+			PolytropicHead: c.PolytropicHeadCoefficient, SpecificSpeed: c.SpecificSpeed, ExitWidthRatio: c.ExitWidthRatio,
+			InletDiameterRatio: c.InletTipRatio},
+		Stations: StationsOut{
+			Suction:                   stateOut(p.Suction.Pressure, p.Suction.Temperature, p.Suction.Density, p.Suction.Compressibility, p.Suction.SoundSpeed, 0),
+			Inlet:                     stateOut(sz.Inlet.Static.Pressure, sz.Inlet.Static.Temperature, sz.Inlet.Static.Density, sz.Inlet.Static.Compressibility, sz.Inlet.Static.SoundSpeed, sz.Inlet.Velocity),
+			ImpellerExit:              stateOut(sz.Exit.Static.Pressure, sz.Exit.Static.Temperature, sz.Exit.Static.Density, sz.Exit.Static.Compressibility, sz.Exit.Static.SoundSpeed, sz.Exit.Velocity),
+			ImpellerExitTotalPressure: float64(v.ExitStagnationPressure),
+			ImpellerEfficiency:        v.ImpellerIsentropicEff,
+			Discharge:                 stateOut(p.Discharge.Pressure, p.Discharge.Temperature, p.Discharge.Density, p.Discharge.Compressibility, p.Discharge.SoundSpeed, 0),
+		},
+		Polytropic: PolytropicOut{Used: p.Method.String(), StepwiseHead: float64(p.Stepwise.Head), StepwiseSteps: p.Stepwise.Steps,
+			SchultzHead: float64(p.Schultz.Head), SchultzFactor: p.Schultz.HeadFactor, Difference: p.HeadDifference},
+		Verdict:  res.Verdict,
+		Limits:   []LimitOut{},
+		Warnings: []WarningOut{},
+		Cautions: res.Cautions,
+		Provenance: ProvenanceOut{ModelVersion: res.Provenance.ModelVersion, GasModel: res.Provenance.GasModel,
+			InputHash: res.Provenance.InputHash, Methods: []MethodOut{}, DefaultsApplied: []DefaultOut{}},
+	}
+	if g.EyeHubDiameter > 0 {
+		h := float64(g.EyeHubDiameter)
+		out.Geometry.EyeHubDiameter = &h
+	}
+	for _, a := range res.Assessments {
+		l := LimitOut{Code: a.Rule.Code, Quantity: a.Rule.Quantity, Severity: string(a.Severity), Value: a.Value,
+			Caution: a.Rule.Caution, Margin: a.Margin, Unit: a.Rule.Unit, Source: a.Rule.Source}
+		if !math.IsNaN(a.Rule.Critical) {
+			crit := a.Rule.Critical
+			l.Critical = &crit
+		}
+		out.Limits = append(out.Limits, l)
+	}
+	for _, w := range res.Warnings {
+		wo := WarningOut{Code: w.Code, Severity: w.Severity, Message: w.Message, Unit: w.Unit, Source: w.Source}
+		if w.Measured {
+			val, lim, mar := w.Value, w.Limit, w.Margin
+			wo.Value, wo.Limit, wo.Margin = &val, &lim, &mar
+		}
+		out.Warnings = append(out.Warnings, wo)
+	}
+	for _, m := range res.Provenance.Methods {
+		out.Provenance.Methods = append(out.Provenance.Methods, MethodOut(m))
+	}
+	for _, d := range res.Provenance.Defaults {
+		out.Provenance.DefaultsApplied = append(out.Provenance.DefaultsApplied, DefaultOut(d))
+	}
+	if err := allFinite(out); err != nil {
+		return StageResponse{}, err
+	}
+	return out, nil
+}
+
+func stateOut(p physics.Pascal, t physics.Kelvin, rho physics.KgPerCubicMeter, z float64, a, c physics.MeterPerS) StateOut {
+	return StateOut{Pressure: float64(p), Temperature: float64(t), Density: float64(rho), Compressibility: z,
+		SpeedOfSound: float64(a), Velocity: float64(c)}
+}

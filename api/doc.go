@@ -1,0 +1,12 @@
+// Package api is the HTTP face of stagewright: the gin router, the JSON
+// request and response types (validator tags for shape, swag annotations
+// for the OpenAPI description), strict decoding, and the mapping of every
+// error to an RFC 9457 problem+json with a JSON pointer to each offending
+// field. Physics is reached only through the service package.
+//
+//	@title			stagewright
+//	@version		1.0
+//	@description	Centrifugal-compressor stage sizing from a gas duty: speed, impeller diameters and widths, head, discharge temperature, gas and shaft power, driver rating and limit warnings. Results are preliminary engineering estimates: defer to the machine's manufacturer, the applicable standards (API 617 / ISO 10439 style), local codes and licensed engineering practice.
+//	@license.name	Proprietary
+//	@BasePath		/
+package api

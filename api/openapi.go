@@ -1,0 +1,84 @@
+package api
+
+import (
+	"context"
+	"encoding/json"
+	"fmt"
+
+	"github.com/getkin/kin-openapi/openapi2"
+	"github.com/getkin/kin-openapi/openapi2conv"
+	"github.com/getkin/kin-openapi/openapi3"
+)
+
+// openAPI3 converts swag's Swagger 2.0 document to OpenAPI 3.0 with
+// kin-openapi, widens every physical-quantity field (marked by swag's
+// x-unit-string extension) to "a number or a string with a unit", and
+// validates the result.
+func openAPI3(spec []byte) ([]byte, error) {
+	var doc2 openapi2.T
+	if err := json.Unmarshal(spec, &doc2); err != nil {
+		return nil, fmt.Errorf("api: read swagger 2.0 document: %w", err)
+	}
+	doc3, err := openapi2conv.ToV3(&doc2)
+	if err != nil {
+		return nil, fmt.Errorf("api: convert to openapi 3: %w", err)
+	}
+	doc3.Servers = openapi3.Servers{{URL: "/", Description: "this service"}}
+	if doc3.Components != nil {
+		for _, s := range doc3.Components.Schemas {
+			widenQuantities(s.Value)
+		}
+	}
+	if err := doc3.Validate(context.Background()); err != nil {
+		return nil, fmt.Errorf("api: openapi 3 document invalid: %w", err)
+	}
+	out, err := json.MarshalIndent(doc3, "", "  ")
+	if err != nil {
+		return nil, fmt.Errorf("api: write openapi 3: %w", err)
+	}
+	return out, nil
+}
+
+// widenQuantities replaces each property carrying x-unit-string with
+// oneOf [number (SI), string (value and unit)].
+func widenQuantities(s *openapi3.Schema) {
+	if s == nil {
+		return
+	}
+	for name, p := range s.Properties {
+		if p == nil || p.Value == nil {
+			continue
+		}
+		dim, ok := p.Value.Extensions["x-unit-string"]
+		if !ok {
+			continue
+		}
+		num := *p.Value
+		num.Extensions = nil
+		str := openapi3.NewStringSchema()
+		str.Description = fmt.Sprintf("a %v with its unit, e.g. %s", dim, unitExample(fmt.Sprint(dim)))
+		s.Properties[name] = &openapi3.SchemaRef{Value: &openapi3.Schema{
+			Description: p.Value.Description,
+			Extensions:  map[string]any{"x-unit-string": dim},
+			OneOf:       openapi3.SchemaRefs{{Value: &num}, {Value: str}},
+		}}
+	}
+}
+
+func unitExample(dim string) string {
+	switch dim {
+	case "pressure":
+		return `"14.7 psia", "1.2 bara", "0.3 barg"`
+	case "temperature":
+		return `"35 degC", "95 degF", "308.15 K"`
+	case "mass-flow":
+		return `"11.5 t/h", "3.2 kg/s"`
+	case "volume-flow":
+		return `"9700 m3/h", "5700 acfm"`
+	case "speed":
+		return `"21000 rpm", "2200 rad/s"`
+	case "velocity":
+		return `"130 m/s", "420 ft/s"`
+	}
+	return `"1 unit"`
+}

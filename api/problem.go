@@ -1,0 +1,169 @@
+package api
+
+import (
+	"errors"
+	"fmt"
+	"log/slog"
+	"net/http"
+	"strings"
+
+	"github.com/gin-gonic/gin"
+	"github.com/go-playground/validator/v10"
+
+	"stagewright/physics"
+	"stagewright/service"
+)
+
+// problemBase prefixes our problem type URIs (RFC 9457 §3.1.1: a URI
+// reference; these name our own problem kinds and need not resolve).
+const problemBase = "https://stagewright.invalid/problems/"
+
+// Problem is an RFC 9457 problem detail with the field errors extension.
+type Problem struct {
+	Type     string         `json:"type" example:"https://stagewright.invalid/problems/invalid-request"`
+	Title    string         `json:"title" example:"Request failed validation"`
+	Status   int            `json:"status" example:"400"`
+	Detail   string         `json:"detail,omitempty" example:"1 field is wrong; see errors"`
+	Instance string         `json:"instance,omitempty" example:"/v1/stage/size"`
+	Errors   []FieldProblem `json:"errors,omitempty"`
+}
+
+// FieldProblem names one offending field by its JSON pointer (RFC 6901).
+type FieldProblem struct {
+	Pointer string `json:"pointer" example:"/suction/pressure"`
+	Detail  string `json:"detail" example:"suction pressure is required (Pa absolute)"`
+}
+
+// errBadBody marks a body that is not JSON or not of the request's shape.
+var errBadBody = errors.New("api: malformed request body")
+
+// fieldErrors is a list of shape errors found while decoding.
+type fieldErrors []FieldProblem
+
+func (f fieldErrors) Error() string {
+	parts := make([]string, len(f))
+	for i, p := range f {
+		parts[i] = p.Pointer + ": " + p.Detail
+	}
+	return "api: " + strings.Join(parts, "; ")
+}
+
+// problemFor maps any error of a request to its problem detail.
+func problemFor(err error) Problem {
+	var ve validator.ValidationErrors
+	var fe fieldErrors
+	var ie *service.InputError
+	var de *physics.DomainError
+	switch {
+	case errors.As(err, &fe):
+		return Problem{Type: problemBase + "invalid-request", Title: "Request failed validation", Status: http.StatusBadRequest,
+			Detail: count(len(fe)), Errors: fe}
+	case errors.As(err, &ve):
+		p := Problem{Type: problemBase + "invalid-request", Title: "Request failed validation", Status: http.StatusBadRequest,
+			Detail: count(len(ve))}
+		for _, e := range ve {
+			p.Errors = append(p.Errors, FieldProblem{Pointer: pointerFor(e), Detail: validationDetail(e)})
+		}
+		return p
+	case errors.Is(err, errBadBody):
+		return Problem{Type: problemBase + "malformed-body", Title: "Body is not valid JSON", Status: http.StatusBadRequest,
+			Detail: strings.TrimPrefix(strings.TrimPrefix(err.Error(), errBadBody.Error()+": "), "json: ")}
+	case errors.As(err, &ie):
+		status, kind, title := http.StatusUnprocessableEntity, "unprocessable", "Input outside what the model covers"
+		if ie.Shape {
+			status, kind, title = http.StatusBadRequest, "invalid-request", "Request failed validation"
+		}
+		return Problem{Type: problemBase + kind, Title: title, Status: status, Detail: ie.Sentence(),
+			Errors: []FieldProblem{{Pointer: dottedPointer(ie.Field), Detail: ie.Sentence()}}}
+	case errors.As(err, &de):
+		return Problem{Type: problemBase + "unprocessable", Title: "Input outside what the model covers",
+			Status: http.StatusUnprocessableEntity, Detail: strings.TrimPrefix(de.Error(), "physics: ")}
+	default: // logged by the caller, never echoed
+		return Problem{Type: "about:blank", Title: "Internal Server Error", Status: http.StatusInternalServerError}
+	}
+}
+
+func count(n int) string {
+	if n == 1 {
+		return "1 field is wrong; see errors"
+	}
+	return fmt.Sprintf("%d fields are wrong; see errors", n)
+}
+
+// dottedPointer turns "impeller.inlet.hub_ratio" into "/impeller/inlet/hub_ratio".
+func dottedPointer(field string) string {
+	if field == "" {
+		return ""
+	}
+	return "/" + strings.ReplaceAll(field, ".", "/")
+}
+
+// pointerFor returns the JSON pointer of a validation error: the namespace
+// uses JSON names (registered in newValidator) and starts with the root
+// type's name, which is dropped. Slice indexes [i] become /i.
+func pointerFor(fe validator.FieldError) string {
+	ns := fe.Namespace()
+	if i := strings.IndexByte(ns, '.'); i >= 0 {
+		ns = ns[i+1:]
+	}
+	ns = strings.NewReplacer("[", ".", "]", "").Replace(ns)
+	return dottedPointer(ns)
+}
+
+// validationDetail is a sentence for one failed validator tag.
+func validationDetail(fe validator.FieldError) string {
+	name := strings.TrimPrefix(pointerFor(fe), "/")
+	switch fe.Tag() {
+	case "required":
+		return name + " is required"
+	case "required_without":
+		return fmt.Sprintf("give %s or %s", fe.Field(), jsonName(fe.Param()))
+	case "excluded_with":
+		return fmt.Sprintf("give only one of %s and %s", fe.Field(), jsonName(fe.Param()))
+	case "oneof":
+		return fmt.Sprintf("%s must be one of: %s", name, strings.ReplaceAll(fe.Param(), " ", ", "))
+	case "gte", "min":
+		return fmt.Sprintf("%s must be at least %s", name, fe.Param())
+	case "lte", "max":
+		return fmt.Sprintf("%s must be at most %s", name, fe.Param())
+	case "gt":
+		return fmt.Sprintf("%s must be greater than %s", name, fe.Param())
+	case "dive", "required_with":
+		return fmt.Sprintf("%s is incomplete (%s %s)", name, fe.Tag(), fe.Param())
+	}
+	return strings.TrimSpace(fmt.Sprintf("%s fails %s %s", name, fe.Tag(), fe.Param()))
+}
+
+// jsonName maps a Go field name used in a validator parameter to its JSON
+// name (snake case of the Go name, as our types use).
+func jsonName(goName string) string {
+	var b strings.Builder
+	for i, r := range goName {
+		if r >= 'A' && r <= 'Z' {
+			if i > 0 {
+				b.WriteByte('_')
+			}
+			r += 'a' - 'A'
+		}
+		b.WriteRune(r)
+	}
+	return b.String()
+}
+
+// writeProblem writes p as application/problem+json and aborts the chain.
+func writeProblem(c *gin.Context, p Problem) {
+	if p.Instance == "" {
+		p.Instance = c.Request.URL.Path
+	}
+	c.Header("Content-Type", "application/problem+json")
+	c.AbortWithStatusJSON(p.Status, p)
+}
+
+// fail maps err to a problem, logs server faults, and writes it.
+func fail(c *gin.Context, log *slog.Logger, err error) {
+	p := problemFor(err)
+	if p.Status >= 500 {
+		log.Error("request failed", "path", c.Request.URL.Path, "err", err)
+	}
+	writeProblem(c, p)
+}

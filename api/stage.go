@@ -1,0 +1,60 @@
+package api
+
+import (
+	"context"
+	"log/slog"
+	"net/http"
+
+	"github.com/gin-gonic/gin"
+	"github.com/go-playground/validator/v10"
+
+	"stagewright/service"
+)
+
+// StageSizer is what the stage handler needs of the service layer.
+type StageSizer interface {
+	SizeStage(ctx context.Context, d service.StageDuty) (service.StageResult, error)
+}
+
+type stageHandler struct {
+	svc      StageSizer
+	validate *validator.Validate
+	log      *slog.Logger
+}
+
+// size sizes one stage.
+//
+//	@Summary		Size one centrifugal stage for a gas duty
+//	@Description	Turns a gas duty (gas, suction state, discharge pressure or pressure ratio, flow, speed, efficiency) and impeller choices (blade exit angle, slip factor, power input factor, inlet) into the tip speed and diameters, inlet and exit widths, heads, discharge temperature, gas and shaft power, driver rating, every limit check with its margin, warnings and provenance. Physical inputs are SI numbers or strings with a unit ("35 degC", "14.7 psia"). Results are preliminary estimates; see the cautions field.
+//	@Tags			stage
+//	@Accept			json
+//	@Produce		json
+//	@Param			duty	body		StageRequest	true	"gas duty and impeller choices"
+//	@Success		200		{object}	StageResponse
+//	@Failure		400		{object}	Problem	"malformed JSON, unknown field, missing or wrongly shaped field"
+//	@Failure		422		{object}	Problem	"physically impossible duty or a state outside the gas model"
+//	@Failure		500		{object}	Problem
+//	@Router			/v1/stage/size [post]
+func (h stageHandler) size(c *gin.Context) {
+	var req StageRequest
+	if err := decodeStrict(c.Request, c.Writer, &req, h.validate); err != nil {
+		fail(c, h.log, err)
+		return
+	}
+	duty, err := dutyOf(req)
+	if err != nil {
+		fail(c, h.log, err)
+		return
+	}
+	res, err := h.svc.SizeStage(c.Request.Context(), duty)
+	if err != nil {
+		fail(c, h.log, err)
+		return
+	}
+	out, err := responseOf(res)
+	if err != nil {
+		fail(c, h.log, err)
+		return
+	}
+	c.JSON(http.StatusOK, out)
+}

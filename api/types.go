@@ -1,0 +1,125 @@
+package api
+
+// StageRequest is one gas duty and the impeller choices to size a stage for.
+type StageRequest struct {
+	Gas     GasSpec     `json:"gas" binding:"required"`
+	Suction SuctionSpec `json:"suction" binding:"required"`
+	// DischargePressure is the discharge total pressure, Pa absolute (or a
+	// string with a unit). Give it or pressure_ratio, not both.
+	DischargePressure *Quantity `json:"discharge_pressure,omitempty" binding:"required_without=PressureRatio,excluded_with=PressureRatio" swaggertype:"primitive,number" format:"double" example:"420000" extensions:"x-unit-string=pressure"`
+	// PressureRatio is the total-to-total pressure ratio p02/p01 (> 1).
+	PressureRatio *float64 `json:"pressure_ratio,omitempty" binding:"required_without=DischargePressure,excluded_with=DischargePressure" format:"double" minimum:"1" example:"4.2"`
+	Flow          FlowSpec `json:"flow" binding:"required"`
+	// Speed is the rotational speed, rev/min (or "rpm", "rad/s", "Hz").
+	Speed      *Quantity      `json:"speed" binding:"required" swaggertype:"primitive,number" format:"double" example:"21000" extensions:"x-unit-string=speed"`
+	Efficiency EfficiencySpec `json:"efficiency" binding:"required"`
+	// MechanicalEfficiency is gas power over shaft power (bearing and seal
+	// losses); default 0.98.
+	MechanicalEfficiency *float64      `json:"mechanical_efficiency,omitempty" format:"double" minimum:"0" maximum:"1" example:"0.98"`
+	Impeller             ImpellerSpec  `json:"impeller" binding:"required"`
+	Diffuser             *DiffuserSpec `json:"diffuser,omitempty"`
+	Options              *OptionsSpec  `json:"options,omitempty"`
+}
+
+// GasSpec selects the gas model. "ideal-constant" needs cp and gamma; the
+// other models need a composition.
+type GasSpec struct {
+	// Model is the property model.
+	Model string `json:"model" binding:"required,oneof=ideal-constant ideal peng-robinson srk" enums:"ideal-constant,ideal,peng-robinson,srk" example:"ideal-constant"`
+	// Cp is the isobaric specific heat capacity for "ideal-constant", J/(kg K).
+	Cp *float64 `json:"cp,omitempty" format:"double" minimum:"0" example:"1005"`
+	// Gamma is the ratio of specific heats cp/cv for "ideal-constant".
+	Gamma *float64 `json:"gamma,omitempty" format:"double" minimum:"1" maximum:"1.6667" example:"1.4"`
+	// Composition maps component (formula or name, e.g. "CH4", "methane")
+	// to its fraction, for the "ideal", "peng-robinson" and "srk" models.
+	Composition map[string]float64 `json:"composition,omitempty" example:"CH4:0.9,C2H6:0.1"`
+	// CompositionBasis says whether the fractions are mole (default) or mass fractions.
+	CompositionBasis string `json:"composition_basis,omitempty" binding:"omitempty,oneof=mole mass" enums:"mole,mass" example:"mole"`
+	// BinaryInteraction overrides the cubic-EOS kij of component pairs.
+	BinaryInteraction []BinaryInteractionSpec `json:"binary_interaction,omitempty" binding:"omitempty,dive"`
+	// RelativeHumidity of air at suction, 0..1 (adds water vapour).
+	RelativeHumidity *float64 `json:"relative_humidity,omitempty" format:"double" minimum:"0" maximum:"1" example:"0.6"`
+	// Service sets the discharge-temperature limit: "process" (default),
+	// "air" (per stage before intercooling) or "fouling" (polymerising gases).
+	Service string `json:"service,omitempty" binding:"omitempty,oneof=process air fouling" enums:"process,air,fouling" example:"air"`
+}
+
+// BinaryInteractionSpec is one kij override.
+type BinaryInteractionSpec struct {
+	// Pair names the two components.
+	Pair []string `json:"pair" binding:"required,len=2" example:"CH4,CO2"`
+	// Kij is the binary interaction parameter, dimensionless.
+	Kij *float64 `json:"kij" binding:"required" format:"double" example:"0.1"`
+}
+
+// SuctionSpec is the suction stagnation state.
+type SuctionSpec struct {
+	// Pressure is the suction total pressure, Pa absolute (or "1.013 bara", "14.7 psia", "0.2 barg").
+	Pressure *Quantity `json:"pressure" binding:"required" swaggertype:"primitive,number" format:"double" example:"100000" extensions:"x-unit-string=pressure"`
+	// Temperature is the suction total temperature, K (or "35 degC", "95 degF").
+	Temperature *Quantity `json:"temperature" binding:"required" swaggertype:"primitive,number" format:"double" example:"300" extensions:"x-unit-string=temperature"`
+	// Ambient is the ambient pressure for gauge units ("barg", "psig"), Pa
+	// absolute; default the standard atmosphere 101325 Pa.
+	Ambient *Quantity `json:"ambient,omitempty" swaggertype:"primitive,number" format:"double" example:"101325" extensions:"x-unit-string=pressure"`
+}
+
+// FlowSpec is the flow through the stage: exactly one of mass or actual_volume.
+type FlowSpec struct {
+	// Mass is the mass flow, kg/s (or "kg/h", "t/h", "lb/h").
+	Mass *Quantity `json:"mass,omitempty" binding:"required_without=ActualVolume,excluded_with=ActualVolume" swaggertype:"primitive,number" format:"double" example:"3.2" extensions:"x-unit-string=mass-flow"`
+	// ActualVolume is the volume flow at suction conditions, m3/s (or "m3/h", "acfm").
+	ActualVolume *Quantity `json:"actual_volume,omitempty" binding:"required_without=Mass,excluded_with=Mass" swaggertype:"primitive,number" format:"double" example:"2.7" extensions:"x-unit-string=volume-flow"`
+}
+
+// EfficiencySpec is the stage total-to-total efficiency: exactly one of
+// isentropic or polytropic, each in (0, 1].
+type EfficiencySpec struct {
+	Isentropic *float64 `json:"isentropic,omitempty" binding:"required_without=Polytropic,excluded_with=Polytropic" format:"double" minimum:"0" maximum:"1" example:"0.8"`
+	Polytropic *float64 `json:"polytropic,omitempty" binding:"required_without=Isentropic,excluded_with=Isentropic" format:"double" minimum:"0" maximum:"1" example:"0.82"`
+}
+
+// ImpellerSpec is the blading and inlet of the impeller.
+type ImpellerSpec struct {
+	// BladeExitAngle is the backsweep from radial, deg; 0 = radial blades.
+	BladeExitAngle *float64 `json:"blade_exit_angle" binding:"required" format:"double" minimum:"0" maximum:"75" example:"0"`
+	// SlipFactor is 1 − slip velocity / tip speed, so that
+	// cθ2 = U2 (slip_factor − φ2 tan(blade_exit_angle)), in (0, 1].
+	SlipFactor *float64 `json:"slip_factor" binding:"required" format:"double" minimum:"0" maximum:"1" example:"0.9"`
+	// PowerInputFactor is actual work over Euler work (>= 1; disc friction
+	// and windage); default 1.
+	PowerInputFactor *float64  `json:"power_input_factor,omitempty" format:"double" minimum:"1" example:"1.04"`
+	Inlet            InletSpec `json:"inlet" binding:"required"`
+	// ExitMeridionalVelocity is the radial velocity cr2 at the tip, m/s.
+	ExitMeridionalVelocity *Quantity `json:"exit_meridional_velocity" binding:"required" swaggertype:"primitive,number" format:"double" example:"110" extensions:"x-unit-string=velocity"`
+	// Construction sets the tip-speed limit: "closed-steel" (default),
+	// "open-steel", "open-aluminium", "open-titanium".
+	Construction string `json:"construction,omitempty" binding:"omitempty,oneof=closed-steel open-steel open-aluminium open-titanium" enums:"closed-steel,open-steel,open-aluminium,open-titanium" example:"open-aluminium"`
+}
+
+// InletSpec is the inlet configuration: "radial" (blades met at D1 =
+// diameter_ratio·D2) or "axial-eye" (an annular eye of hub_ratio).
+type InletSpec struct {
+	Type string `json:"type" binding:"required,oneof=radial axial-eye" enums:"radial,axial-eye" example:"axial-eye"`
+	// DiameterRatio is D1/D2 for a radial inlet.
+	DiameterRatio *float64 `json:"diameter_ratio,omitempty" binding:"required_if=Type radial,excluded_unless=Type radial" format:"double" minimum:"0" maximum:"1" example:"0.45"`
+	// HubRatio is eye hub diameter / eye tip diameter for an axial eye.
+	HubRatio *float64 `json:"hub_ratio,omitempty" binding:"required_if=Type axial-eye,excluded_unless=Type axial-eye" format:"double" minimum:"0" maximum:"0.95" example:"0.35"`
+	// MeridionalVelocity is the velocity entering the blades, m/s (no pre-whirl).
+	MeridionalVelocity *Quantity `json:"meridional_velocity" binding:"required" swaggertype:"primitive,number" format:"double" example:"130" extensions:"x-unit-string=velocity"`
+}
+
+// DiffuserSpec names the diffuser downstream of the impeller; it sets the
+// diffuser-inlet Mach limit and whether the flow-angle (stall) rule applies.
+type DiffuserSpec struct {
+	Type string `json:"type" binding:"required,oneof=vaneless vaned" enums:"vaneless,vaned" example:"vaneless"`
+}
+
+// OptionsSpec holds method choices.
+type OptionsSpec struct {
+	// PolytropicMethod picks the polytropic head reported: "stepwise"
+	// (default, the path integrated in small steps) or "schultz" (ASME PTC 10).
+	PolytropicMethod string `json:"polytropic_method,omitempty" binding:"omitempty,oneof=stepwise schultz" enums:"stepwise,schultz" example:"stepwise"`
+	// ImpellerLossShare is the fraction of the stage loss that arises in the
+	// impeller when the exit static state is found; default 0.5.
+	ImpellerLossShare *float64 `json:"impeller_loss_share,omitempty" format:"double" minimum:"0" maximum:"1" example:"0.5"`
+}
