@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 
+	"stagewright/api/units"
 	"stagewright/physics"
 	"stagewright/service"
 )
@@ -62,8 +63,7 @@ func dutyOf(r StageRequest) (service.StageDuty, error) {
 		}
 	}
 	d := service.StageDuty{
-		Gas: service.GasInput{Model: r.Gas.Model, Cp: r.Gas.Cp, Gamma: r.Gas.Gamma, Composition: r.Gas.Composition,
-			CompositionBasis: r.Gas.CompositionBasis, RelativeHumidity: r.Gas.RelativeHumidity, Service: r.Gas.Service},
+		Gas:                  gasInputOf(r.Gas),
 		PressureRatio:        r.PressureRatio,
 		IsentropicEfficiency: r.Efficiency.Isentropic,
 		PolytropicEfficiency: r.Efficiency.Polytropic,
@@ -71,9 +71,6 @@ func dutyOf(r StageRequest) (service.StageDuty, error) {
 		Impeller: service.ImpellerInput{BladeExitAngle: must(r.Impeller.BladeExitAngle), SlipFactor: must(r.Impeller.SlipFactor),
 			PowerInputFactor: r.Impeller.PowerInputFactor, Construction: r.Impeller.Construction,
 			Inlet: service.InletInput{Type: r.Impeller.Inlet.Type, DiameterRatio: r.Impeller.Inlet.DiameterRatio, HubRatio: r.Impeller.Inlet.HubRatio}},
-	}
-	for _, k := range r.Gas.BinaryInteraction {
-		d.Gas.Interactions = append(d.Gas.Interactions, service.Interaction{A: k.Pair[0], B: k.Pair[1], Kij: must(k.Kij)})
 	}
 	if r.Diffuser != nil {
 		d.Diffuser = r.Diffuser.Type
@@ -96,6 +93,9 @@ func dutyOf(r StageRequest) (service.StageDuty, error) {
 	d.DischargePressure = conv(r.DischargePressure, dimPressure, "discharge_pressure")
 	d.MassFlow = conv(r.Flow.Mass, dimMassFlow, "flow.mass")
 	d.ActualVolumeFlow = conv(r.Flow.ActualVolume, dimVolumeFlow, "flow.actual_volume")
+	if err == nil {
+		d.StandardVolumeFlow, d.StandardReference, err = standardFlow(r.Flow)
+	}
 	d.Speed = must(conv(r.Speed, dimSpeed, "speed"))
 	d.Impeller.ExitMeridionalVelocity = must(conv(r.Impeller.ExitMeridionalVelocity, dimVelocity, "impeller.exit_meridional_velocity"))
 	d.Impeller.Inlet.MeridionalVelocity = must(conv(r.Impeller.Inlet.MeridionalVelocity, dimVelocity, "impeller.inlet.meridional_velocity"))
@@ -109,6 +109,33 @@ func dutyOf(r StageRequest) (service.StageDuty, error) {
 		return service.StageDuty{}, &service.InputError{Field: "suction.temperature", Err: fmt.Errorf("the suction temperature must be above 0 K, not %g K", d.SuctionTemperature)}
 	}
 	return d, nil
+}
+
+// standardFlow reads flow.standard_volume with its reference condition.
+func standardFlow(f FlowSpec) (*float64, string, error) {
+	q := f.StandardVolume
+	if q == nil {
+		if f.Reference != "" {
+			return nil, "", &service.InputError{Field: "flow.reference", Shape: true, Err: errors.New("flow.reference applies only to flow.standard_volume")}
+		}
+		return nil, "", nil
+	}
+	if !q.isText {
+		v := q.number
+		if math.IsNaN(v) || math.IsInf(v, 0) {
+			return nil, "", &service.InputError{Field: "flow.standard_volume", Shape: true, Err: errors.New("the value is not a finite number")}
+		}
+		return &v, f.Reference, nil
+	}
+	sf, err := units.ParseStandardVolumeFlow(q.text)
+	if err != nil {
+		return nil, "", &service.InputError{Field: "flow.standard_volume", Shape: true, Err: err}
+	}
+	if f.Reference != "" && f.Reference != sf.Reference {
+		return nil, "", &service.InputError{Field: "flow.reference", Shape: true,
+			Err: fmt.Errorf("flow.standard_volume %q is at %s conditions but flow.reference says %s", q.text, sf.Reference, f.Reference)}
+	}
+	return &sf.Flow, sf.Reference, nil
 }
 
 // errNotFinite marks a computed output that is NaN or ±Inf: a defect of
@@ -153,8 +180,6 @@ func responseOf(res service.StageResult) (StageResponse, error) {
 		Limits:   []LimitOut{},
 		Warnings: []WarningOut{},
 		Cautions: res.Cautions,
-		Provenance: ProvenanceOut{ModelVersion: res.Provenance.ModelVersion, GasModel: res.Provenance.GasModel,
-			InputHash: res.Provenance.InputHash, Methods: []MethodOut{}, DefaultsApplied: []DefaultOut{}},
 	}
 	if g.EyeHubDiameter > 0 {
 		h := float64(g.EyeHubDiameter)
@@ -177,12 +202,7 @@ func responseOf(res service.StageResult) (StageResponse, error) {
 		}
 		out.Warnings = append(out.Warnings, wo)
 	}
-	for _, m := range res.Provenance.Methods {
-		out.Provenance.Methods = append(out.Provenance.Methods, MethodOut(m))
-	}
-	for _, d := range res.Provenance.Defaults {
-		out.Provenance.DefaultsApplied = append(out.Provenance.DefaultsApplied, DefaultOut(d))
-	}
+	out.Provenance = provenanceOut(res.Provenance)
 	if err := allFinite(out); err != nil {
 		return StageResponse{}, err
 	}

@@ -22,6 +22,7 @@ const maxBody = 1 << 20
 // so that error namespaces read "StageRequest.suction.pressure".
 func newValidator() *validator.Validate {
 	v := validator.New(validator.WithRequiredStructEnabled())
+	v.SetTagName("binding")
 	v.RegisterTagNameFunc(func(f reflect.StructField) string {
 		name, _, _ := strings.Cut(f.Tag.Get("json"), ",")
 		if name == "-" {

@@ -12,6 +12,7 @@ import (
 // Services are the use cases the router serves.
 type Services interface {
 	StageSizer
+	GasPropertyService
 }
 
 // NewRouter returns the HTTP handler of the service: routes, recovery,
@@ -39,6 +40,9 @@ func NewRouter(svc Services, log *slog.Logger, spec []byte) (*gin.Engine, error)
 	r.GET("/openapi/swagger.json", func(c *gin.Context) { c.Data(http.StatusOK, "application/json", spec) })
 	st := stageHandler{svc: svc, validate: newValidator(), log: log}
 	r.POST("/v1/stage/size", st.size)
+	gh := gasHandler{svc: svc, validate: st.validate, log: log}
+	r.POST("/v1/gas/properties", gh.properties)
+	r.GET("/v1/gas/components", gh.components)
 	return r, nil
 }
 

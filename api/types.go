@@ -63,12 +63,20 @@ type SuctionSpec struct {
 	Ambient *Quantity `json:"ambient,omitempty" swaggertype:"primitive,number" format:"double" example:"101325" extensions:"x-unit-string=pressure"`
 }
 
-// FlowSpec is the flow through the stage: exactly one of mass or actual_volume.
+// FlowSpec is the flow through the stage: exactly one of mass,
+// actual_volume and standard_volume.
 type FlowSpec struct {
 	// Mass is the mass flow, kg/s (or "kg/h", "t/h", "lb/h").
-	Mass *Quantity `json:"mass,omitempty" binding:"required_without=ActualVolume,excluded_with=ActualVolume" swaggertype:"primitive,number" format:"double" example:"3.2" extensions:"x-unit-string=mass-flow"`
+	Mass *Quantity `json:"mass,omitempty" swaggertype:"primitive,number" format:"double" example:"3.2" extensions:"x-unit-string=mass-flow"`
 	// ActualVolume is the volume flow at suction conditions, m3/s (or "m3/h", "acfm").
-	ActualVolume *Quantity `json:"actual_volume,omitempty" binding:"required_without=Mass,excluded_with=Mass" swaggertype:"primitive,number" format:"double" example:"2.7" extensions:"x-unit-string=volume-flow"`
+	ActualVolume *Quantity `json:"actual_volume,omitempty" swaggertype:"primitive,number" format:"double" example:"2.7" extensions:"x-unit-string=volume-flow"`
+	// StandardVolume is the volume flow at a reference condition, m3/s (or
+	// "2400 Nm3/h", "48 MMSCFD", "1500 SCFM", which name their reference).
+	StandardVolume *Quantity `json:"standard_volume,omitempty" swaggertype:"primitive,number" format:"double" example:"0.65" extensions:"x-unit-string=standard-volume-flow"`
+	// Reference names the reference condition of a numeric standard_volume:
+	// "normal" (0 degC, 101.325 kPa), "standard" (ISO 13443: 15 degC,
+	// 101.325 kPa) or "us-standard" (60 degF, 14.696 psia).
+	Reference string `json:"reference,omitempty" binding:"omitempty,oneof=normal standard us-standard" enums:"normal,standard,us-standard" example:"normal"`
 }
 
 // EfficiencySpec is the stage total-to-total efficiency: exactly one of

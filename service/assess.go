@@ -92,6 +92,14 @@ func (s *Service) assess(d StageDuty, res *StageResult) error {
 			Value:   hd, Limit: 0.005, Margin: (0.005 - math.Abs(hd)) / 0.005, Unit: "-",
 			Source: "Sandberg & Colby, Texas A&M Turbomachinery Symposium 2013 (PTC 10 head-factor error for non-ideal gases); threshold common practice, no source"})
 	}
+	for _, w := range res.Warnings {
+		switch {
+		case w.Severity == string(limits.Critical):
+			verdict = limits.Critical
+		case w.Severity == string(limits.Caution) && verdict == limits.Within:
+			verdict = limits.Caution
+		}
+	}
 	switch verdict {
 	case limits.Within:
 		res.Verdict = "within-limits"

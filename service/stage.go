@@ -10,6 +10,7 @@ import (
 	"math"
 
 	"stagewright/physics"
+	"stagewright/physics/flowbasis"
 	"stagewright/physics/gas"
 	"stagewright/physics/limits"
 	"stagewright/physics/path"
@@ -85,13 +86,17 @@ type ImpellerInput struct {
 // PressureRatio, of MassFlow and ActualVolumeFlow, and of
 // IsentropicEfficiency and PolytropicEfficiency is set.
 type StageDuty struct {
-	Gas                  GasInput      `json:"gas"`
-	SuctionPressure      float64       `json:"suction_pressure"`
-	SuctionTemperature   float64       `json:"suction_temperature"`
-	DischargePressure    *float64      `json:"discharge_pressure,omitempty"`
-	PressureRatio        *float64      `json:"pressure_ratio,omitempty"`
-	MassFlow             *float64      `json:"mass_flow,omitempty"`
-	ActualVolumeFlow     *float64      `json:"actual_volume_flow,omitempty"`
+	Gas                GasInput `json:"gas"`
+	SuctionPressure    float64  `json:"suction_pressure"`
+	SuctionTemperature float64  `json:"suction_temperature"`
+	DischargePressure  *float64 `json:"discharge_pressure,omitempty"`
+	PressureRatio      *float64 `json:"pressure_ratio,omitempty"`
+	MassFlow           *float64 `json:"mass_flow,omitempty"`
+	ActualVolumeFlow   *float64 `json:"actual_volume_flow,omitempty"`
+	StandardVolumeFlow *float64 `json:"standard_volume_flow,omitempty"`
+	// StandardReference names the reference condition of
+	// StandardVolumeFlow: "normal", "standard" or "us-standard".
+	StandardReference    string        `json:"standard_reference,omitempty"`
 	Speed                float64       `json:"speed"`
 	IsentropicEfficiency *float64      `json:"isentropic_efficiency,omitempty"`
 	PolytropicEfficiency *float64      `json:"polytropic_efficiency,omitempty"`
@@ -186,7 +191,7 @@ func (s *Service) SizeStage(ctx context.Context, d StageDuty) (StageResult, erro
 	prov.Methods = append(prov.Methods, gasNotes.methods...)
 	res.Warnings = append(res.Warnings, gasNotes.warnings...)
 
-	suction, err := model.State(physics.Kelvin(d.SuctionTemperature), physics.Pascal(d.SuctionPressure))
+	suction, err := fullState(model, physics.Kelvin(d.SuctionTemperature), physics.Pascal(d.SuctionPressure))
 	if err != nil {
 		return StageResult{}, suctionError(err, d)
 	}
@@ -200,7 +205,7 @@ func (s *Service) SizeStage(ctx context.Context, d StageDuty) (StageResult, erro
 	if err != nil {
 		return StageResult{}, err
 	}
-	mdot, err := massFlow(d, suction)
+	mdot, err := massFlow(d, model, suction, prov)
 	if err != nil {
 		return StageResult{}, err
 	}
@@ -273,6 +278,11 @@ func (s *Service) SizeStage(ctx context.Context, d StageDuty) (StageResult, erro
 	}
 	prov.Methods = append(prov.Methods, Method{Subject: "driver rating", Name: "shaft power × 1.10", Source: limits.DriverMarginSource})
 
+	res.Warnings = append(res.Warnings, checkPhases(model, []station{
+		{"impeller inlet (static)", sz.Inlet.Static},
+		{"impeller exit (static)", sz.Exit.Static},
+		{"discharge", comp.Discharge},
+	})...)
 	if err := s.assess(d, &res); err != nil {
 		return StageResult{}, err
 	}
@@ -280,7 +290,7 @@ func (s *Service) SizeStage(ctx context.Context, d StageDuty) (StageResult, erro
 	return res, nil
 }
 
-func hashOf(d StageDuty) string {
+func hashOf(d any) string {
 	b, err := json.Marshal(d)
 	if err != nil {
 		return ""
@@ -311,16 +321,23 @@ func dischargePressure(d StageDuty) (float64, error) {
 	return 0, shapeErr("discharge_pressure", errors.New("give discharge_pressure or pressure_ratio"))
 }
 
-func massFlow(d StageDuty, suction gas.State) (float64, error) {
-	switch {
-	case d.MassFlow != nil && d.ActualVolumeFlow != nil:
-		return 0, shapeErr("flow", errors.New("give flow.mass or flow.actual_volume, not both"))
-	case d.MassFlow != nil:
-		m := *d.MassFlow
-		if !(m > 0) || math.IsInf(m, 0) {
-			return 0, fieldErr("flow.mass", reason("mass", "the mass flow must be a positive number of kg/s", m))
+func massFlow(d StageDuty, m gas.Model, suction gas.State, prov *Provenance) (float64, error) {
+	given := 0
+	for _, f := range []*float64{d.MassFlow, d.ActualVolumeFlow, d.StandardVolumeFlow} {
+		if f != nil {
+			given++
 		}
-		return m, nil
+	}
+	if given != 1 {
+		return 0, shapeErr("flow", errors.New("give exactly one of flow.mass, flow.actual_volume and flow.standard_volume"))
+	}
+	switch {
+	case d.MassFlow != nil:
+		v := *d.MassFlow
+		if !(v > 0) || math.IsInf(v, 0) {
+			return 0, fieldErr("flow.mass", reason("mass", "the mass flow must be a positive number of kg/s", v))
+		}
+		return v, nil
 	case d.ActualVolumeFlow != nil:
 		q := *d.ActualVolumeFlow
 		if !(q > 0) || math.IsInf(q, 0) {
@@ -328,7 +345,24 @@ func massFlow(d StageDuty, suction gas.State) (float64, error) {
 		}
 		return q * float64(suction.Density), nil
 	}
-	return 0, shapeErr("flow", errors.New("give flow.mass or flow.actual_volume"))
+	q := *d.StandardVolumeFlow
+	if !(q > 0) || math.IsInf(q, 0) {
+		return 0, fieldErr("flow.standard_volume", reason("standard_volume", "the standard volume flow must be a positive number of m3/s at the reference condition", q))
+	}
+	if d.StandardReference == "" {
+		return 0, shapeErr("flow.reference", errors.New("a standard volume flow needs its reference condition: normal (0 degC, 101.325 kPa), standard (ISO 13443: 15 degC, 101.325 kPa) or us-standard (60 degF, 14.696 psia)"))
+	}
+	ref, err := flowbasis.ReferenceNamed(d.StandardReference)
+	if err != nil {
+		return 0, shapeErr("flow.reference", err)
+	}
+	mdot, err := flowbasis.MassFlowFromStandard(physics.CubicMeterPerS(q), m, ref)
+	if err != nil {
+		return 0, fieldErr("flow.standard_volume", err)
+	}
+	prov.Methods = append(prov.Methods, Method{Subject: "flow basis", Name: "standard volume at " + ref.Name + " conditions, density of the gas model there",
+		Source: ref.Source})
+	return float64(mdot), nil
 }
 
 func efficiency(d StageDuty) (path.Efficiency, string, error) {

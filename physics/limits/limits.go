@@ -91,7 +91,7 @@ func (r Rule) Check(v float64) (Assessment, error) {
 }
 
 // Message is a sentence for an engineer, e.g. "impeller tip speed 372 m/s
-// exceeds the caution limit of 300 m/s (critical 350 m/s)".
+// exceeds the critical limit of 350 m/s".
 func (a Assessment) Message() string {
 	verb, level := "exceeds", "caution"
 	if a.Rule.Sense == Below {
@@ -100,10 +100,14 @@ func (a Assessment) Message() string {
 	if a.Severity == Critical {
 		level = "critical"
 	}
-	if a.Severity == Within {
-		return fmt.Sprintf("%s %s %s is within the caution limit of %s %s", a.Rule.Quantity, num(a.Value), a.Rule.Unit, num(a.Rule.Caution), a.Rule.Unit)
+	unit := ""
+	if a.Rule.Unit != "" && a.Rule.Unit != "-" {
+		unit = " " + a.Rule.Unit
 	}
-	return fmt.Sprintf("%s %s %s %s the %s limit of %s %s", a.Rule.Quantity, num(a.Value), a.Rule.Unit, verb, level, num(a.Limit), a.Rule.Unit)
+	if a.Severity == Within {
+		return fmt.Sprintf("%s %s%s is within the caution limit of %s%s", a.Rule.Quantity, num(a.Value), unit, num(a.Rule.Caution), unit)
+	}
+	return fmt.Sprintf("%s %s%s %s the %s limit of %s%s", a.Rule.Quantity, num(a.Value), unit, verb, level, num(a.Limit), unit)
 }
 
 func num(v float64) string { return fmt.Sprintf("%.4g", v) }
