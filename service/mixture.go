@@ -75,6 +75,16 @@ func (m pathModel) State(t physics.Kelvin, p physics.Pascal) (gas.State, error) 
 	return m.Real.GasState(t, p)
 }
 
+// StateFromPH solves the (P,h) flash without the stability test.
+func (m pathModel) StateFromPH(p physics.Pascal, h physics.JoulePerKg) (gas.State, error) {
+	return m.Real.GasStateFromPH(p, h)
+}
+
+// StateFromPS solves the (P,s) flash without the stability test.
+func (m pathModel) StateFromPS(p physics.Pascal, s physics.JoulePerKgK) (gas.State, error) {
+	return m.Real.GasStateFromPS(p, s)
+}
+
 // fullState returns the state with the phase test.
 func fullState(m gas.Model, t physics.Kelvin, p physics.Pascal) (gas.State, error) {
 	if pm, ok := m.(pathModel); ok {

@@ -3,6 +3,7 @@ package gas
 import (
 	"strconv"
 	"strings"
+	"sync"
 
 	"stagewright/physics"
 )
@@ -276,21 +277,26 @@ func normName(s string) string {
 // "n-butane" and "N-C4H10" all find n-butane). An unknown name returns a
 // *physics.DomainError naming it that also matches ErrUnknownComponent.
 func LookupComponent(name string) (Component, error) {
-	key := normName(name)
-	if key != "" {
-		for _, c := range Components() {
-			if normName(c.ID) == key {
-				return c, nil
-			}
-			for _, n := range c.Names {
-				if normName(n) == key {
-					return c, nil
-				}
-			}
-		}
+	if c, ok := lookupIndex()[normName(name)]; ok && name != "" {
+		return c, nil
 	}
 	return Component{}, unknownComponent(name)
 }
+
+// lookupIndex maps every folded id and alias to its component. It is built
+// once, on first use, and never changed afterwards (an immutable value, not
+// mutable package state); callers get copies of the Component structs and
+// must not modify the Names or Sources slices they share.
+var lookupIndex = sync.OnceValue(func() map[string]Component {
+	idx := map[string]Component{}
+	for _, c := range Components() {
+		idx[normName(c.ID)] = c
+		for _, n := range c.Names {
+			idx[normName(n)] = c
+		}
+	}
+	return idx
+})
 
 // componentIndex returns the position of the component with id in the
 // catalogue, or -1.

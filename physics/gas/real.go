@@ -349,3 +349,18 @@ func (m Real) StateFromPS(p physics.Pascal, s physics.JoulePerKgK) (State, error
 }
 
 func itoa(i int) string { return strconv.Itoa(i) }
+
+// GasStateFromPH is StateFromPH without the phase-stability test at the
+// solution (as GasState is to State): for callers that evaluate many states
+// along a path and check the phase of its end states themselves.
+func (m Real) GasStateFromPH(p physics.Pascal, h physics.JoulePerKg) (State, error) {
+	return TemperatureSolve(func(t physics.Kelvin) (State, error) { return m.GasState(t, p) }, float64(h),
+		stateEnthalpy, stateCp, physics.Kelvin(m.tLo), physics.Kelvin(m.tHi))
+}
+
+// GasStateFromPS is StateFromPS without the phase-stability test at the
+// solution (see GasStateFromPH).
+func (m Real) GasStateFromPS(p physics.Pascal, s physics.JoulePerKgK) (State, error) {
+	return TemperatureSolve(func(t physics.Kelvin) (State, error) { return m.GasState(t, p) }, float64(s),
+		stateEntropy, stateCpOverT, physics.Kelvin(m.tLo), physics.Kelvin(m.tHi))
+}

@@ -7,24 +7,77 @@ import (
 )
 
 // StateFromHS returns the state of model m with specific enthalpy h and
-// entropy s, starting the search at pressure pGuess. Along an isentrope
-// (dh/dp)_s = v = 1/ρ (Gibbs relation dh = T ds + v dp), so Newton steps in
-// p on the (P,s) flash converge in a few iterations:
+// entropy s, starting the search at pressure pGuess. It takes one (P,s)
+// flash at pGuess and then Newton steps in (T, p) on the two equations
+// h(T,p) = h, s(T,p) = s, with the Jacobian from the Gibbs relations
 //
-//	p_{k+1} = p_k + ρ_k (h − h(p_k, s))
+//	dh = cp dT + (v − T (∂v/∂T)_p) dp,   ds = (cp/T) dT − (∂v/∂T)_p dp,
+//	(∂v/∂T)_p = (1 + X) v/T   (X the Schultz function of State),
 //
-// Source: the Gibbs equation, e.g. Çengel & Boles, Thermodynamics: An
-// Engineering Approach, 6th ed. (2008), eq. 7-24. Used for static states
-// (stagnation enthalpy less kinetic energy at the stagnation entropy).
+// whose determinant is −cp v/T (never zero for a gas). Should the Newton
+// steps not converge, it falls back to Newton in p alone on the (P,s)
+// flash, (dh/dp)_s = v. Source: the Gibbs equation and Maxwell relations,
+// e.g. Çengel & Boles, Thermodynamics: An Engineering Approach, 6th ed.
+// (2008), §7-7 and §12-3. Used for static states (stagnation enthalpy less
+// kinetic energy at the stagnation entropy).
 func StateFromHS(m Model, h physics.JoulePerKg, s physics.JoulePerKgK, pGuess physics.Pascal) (State, error) {
 	if !physics.Finite(float64(h), float64(s), float64(pGuess)) || !(pGuess > 0) {
 		return State{}, &physics.DomainError{Name: "pressure", Value: float64(pGuess), Want: "finite h, s and p > 0"}
 	}
+	st, err := m.StateFromPS(pGuess, s)
+	if err != nil {
+		return State{}, err
+	}
+	if done(st, h, s) {
+		return st, nil
+	}
+	if out, ok := newtonHS(m, st, h, s); ok {
+		return out, nil
+	}
+	return pressureNewtonHS(m, h, s, pGuess)
+}
+
+func done(st State, h physics.JoulePerKg, s physics.JoulePerKgK) bool {
+	tol := 1e-9 * math.Max(1, math.Abs(float64(h)))
+	return math.Abs(float64(h-st.Enthalpy)) <= tol &&
+		math.Abs(float64(s-st.Entropy))*float64(st.Temperature) <= tol
+}
+
+// newtonHS runs the two-variable Newton iteration of StateFromHS from st.
+func newtonHS(m Model, st State, h physics.JoulePerKg, s physics.JoulePerKgK) (State, bool) {
+	for range 30 {
+		t, p := float64(st.Temperature), float64(st.Pressure)
+		v := 1 / float64(st.Density)
+		cp := float64(st.Cp)
+		dvdT := (1 + st.SchultzX) * v / t
+		dh, ds := float64(h-st.Enthalpy), float64(s-st.Entropy)
+		det := -cp * v / t
+		dT := (dh*(-dvdT) - (v-t*dvdT)*ds) / det
+		dp := (cp*ds - cp/t*dh) / det
+		if !physics.Finite(dT, dp) || !(det < 0) {
+			return State{}, false
+		}
+		// Bound the step: T and p change by at most a factor 2.
+		nt := math.Min(math.Max(t+dT, t/2), 2*t)
+		np := math.Min(math.Max(p+dp, p/2), 2*p)
+		next, err := m.State(physics.Kelvin(nt), physics.Pascal(np))
+		if err != nil {
+			return State{}, false
+		}
+		st = next
+		if done(st, h, s) {
+			return st, true
+		}
+	}
+	return State{}, false
+}
+
+// pressureNewtonHS is the fallback of StateFromHS: Newton in p along the
+// isentrope, p_{k+1} = p_k + ρ_k (h − h(p_k, s)).
+func pressureNewtonHS(m Model, h physics.JoulePerKg, s physics.JoulePerKgK, pGuess physics.Pascal) (State, error) {
 	p := float64(pGuess)
-	var st State
-	var err error
 	for range 60 {
-		st, err = m.StateFromPS(physics.Pascal(p), s)
+		st, err := m.StateFromPS(physics.Pascal(p), s)
 		if err != nil {
 			return State{}, err
 		}
@@ -33,7 +86,6 @@ func StateFromHS(m Model, h physics.JoulePerKg, s physics.JoulePerKgK, pGuess ph
 			return st, nil
 		}
 		next := p + float64(st.Density)*dh
-		// Keep p positive and the step bounded: at most a factor 4 either way.
 		next = math.Min(math.Max(next, p/4), 4*p)
 		if math.Abs(next-p) <= 1e-12*p {
 			return st, nil
