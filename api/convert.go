@@ -181,6 +181,17 @@ func responseOf(res service.StageResult) (StageResponse, error) {
 		Warnings: []WarningOut{},
 		Cautions: res.Cautions,
 	}
+	dews := []struct {
+		st *StateOut
+		v  float64
+	}{{&out.Stations.Suction, res.WaterDewPoints.Suction}, {&out.Stations.Inlet, res.WaterDewPoints.Inlet},
+		{&out.Stations.ImpellerExit, res.WaterDewPoints.ImpellerExit}, {&out.Stations.Discharge, res.WaterDewPoints.Discharge}}
+	for _, d := range dews {
+		if d.v > 0 {
+			v := d.v
+			d.st.WaterDewPoint = &v
+		}
+	}
 	if g.EyeHubDiameter > 0 {
 		h := float64(g.EyeHubDiameter)
 		out.Geometry.EyeHubDiameter = &h

@@ -147,6 +147,8 @@ type StateOut struct {
 	SpeedOfSound float64 `json:"speed_of_sound" format:"double"`
 	// Velocity of the stream at the station, m/s (0 for stagnation states).
 	Velocity float64 `json:"velocity" format:"double"`
+	// WaterDewPoint is the water dew point at the station's pressure, K (absent when the gas holds no water).
+	WaterDewPoint *float64 `json:"water_dew_point,omitempty" format:"double"`
 }
 
 // StationsOut are the states along the stage.

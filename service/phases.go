@@ -14,13 +14,16 @@ type station struct {
 	st   gas.State
 }
 
-// checkPhases looks at each station with the model's full phase test and
+// checkPhases looks at each station (and returns its water dew point in K,
+// 0 where the gas holds no water or the dew point is below the triple
+// point) with the model's full phase test and
 // returns warnings for condensation (model phase, water dew point), states
 // where a cubic equation of state loses accuracy, and correlations used
 // beyond their range. It never fails the request: the suction state is
 // checked before and a wet suction is a 422 there.
-func checkPhases(m gas.Model, stations []station) []Warning {
+func checkPhases(m gas.Model, stations []station) ([]Warning, []float64) {
 	var out []Warning
+	dew := make([]float64, len(stations))
 	comp, hasComp := compositionOfModel(m)
 	xw := 0.0
 	if hasComp {
@@ -31,7 +34,7 @@ func checkPhases(m gas.Model, stations []station) []Warning {
 		}
 	}
 	seenValidity := gas.Validity(0)
-	for _, s := range stations {
+	for k, s := range stations {
 		full, err := fullState(m, s.st.Temperature, s.st.Pressure)
 		if err != nil {
 			continue
@@ -44,6 +47,7 @@ func checkPhases(m gas.Model, stations []station) []Warning {
 		if xw > 0 {
 			c, err := water.WaterCondensation(s.st.Temperature, xw, s.st.Pressure)
 			if err == nil && c.DewPointKnown {
+				dew[k] = float64(c.DewPoint)
 				margin := float64(c.Margin)
 				if c.Condenses || margin < 5 {
 					sev := "caution"
@@ -67,7 +71,7 @@ func checkPhases(m gas.Model, stations []station) []Warning {
 			Message: "an ideal-gas heat capacity correlation was used beyond its stated temperature range at one or more stations",
 			Source:  "ranges of the NIST Shomate fits and Poling et al. (2001) polynomials in the component catalogue"})
 	}
-	return out
+	return out, dew
 }
 
 // compositionOfModel returns the composition of a mixture model.

@@ -156,8 +156,15 @@ type Power struct {
 	DriverMargin float64
 }
 
+// WaterDewPoints are the water dew points at the stations, K (0: no water
+// in the gas, or a frost point below the triple point).
+type WaterDewPoints struct {
+	Suction, Inlet, ImpellerExit, Discharge float64
+}
+
 // StageResult is a sized stage.
 type StageResult struct {
+	WaterDewPoints    WaterDewPoints
 	MassFlow          float64
 	SuctionVolumeFlow float64
 	Speed             float64
@@ -278,11 +285,14 @@ func (s *Service) SizeStage(ctx context.Context, d StageDuty) (StageResult, erro
 	}
 	prov.Methods = append(prov.Methods, Method{Subject: "driver rating", Name: "shaft power × 1.10", Source: limits.DriverMarginSource})
 
-	res.Warnings = append(res.Warnings, checkPhases(model, []station{
+	phaseWarnings, dew := checkPhases(model, []station{
+		{"suction", suction},
 		{"impeller inlet (static)", sz.Inlet.Static},
 		{"impeller exit (static)", sz.Exit.Static},
 		{"discharge", comp.Discharge},
-	})...)
+	})
+	res.Warnings = append(res.Warnings, phaseWarnings...)
+	res.WaterDewPoints = WaterDewPoints{Suction: dew[0], Inlet: dew[1], ImpellerExit: dew[2], Discharge: dew[3]}
 	if err := s.assess(d, &res); err != nil {
 		return StageResult{}, err
 	}
