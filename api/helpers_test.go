@@ -189,3 +189,8 @@ func requireProblem(tb testing.TB, w *httptest.ResponseRecorder, status int, kin
 	}
 	return p
 }
+
+// newRouterWith builds the router over a given Swagger 2.0 document.
+func newRouterWith(spec []byte) (http.Handler, error) {
+	return api.NewRouter(service.New(), slog.New(slog.DiscardHandler), spec)
+}
