@@ -167,10 +167,9 @@ func TestCO2IsothermEnthalpyDifference(t *testing.T) {
 func TestIdealGasLimit(t *testing.T) {
 	// At 1 Pa every departure tends to 0 and Z to 1 (ideal-gas limit,
 	// exact as P → 0); 1e-6 is a bound on B ≈ 1e-9 times O(10) terms.
-	m := newMixture(t, cubic.PengRobinson, nil, methane, ethane, nitrogen)
 	x := []float64{0.85, 0.1, 0.05}
 	for _, kind := range []cubic.Kind{cubic.PengRobinson, cubic.SoaveRedlichKwong} {
-		m = newMixture(t, kind, nil, methane, ethane, nitrogen)
+		m := newMixture(t, kind, nil, methane, ethane, nitrogen)
 		got, err := m.Residual(x, 300, 1)
 		require.NoError(t, err)
 		assert.InDelta(t, 1, got.Z, 1e-6)
