@@ -27,6 +27,7 @@ func openAPI3(spec []byte) ([]byte, error) {
 	if doc3.Components != nil {
 		for _, s := range doc3.Components.Schemas {
 			widenQuantities(s.Value)
+			doubleNumbers(s.Value, map[*openapi3.Schema]bool{})
 		}
 	}
 	if err := doc3.Validate(context.Background()); err != nil {
@@ -81,4 +82,33 @@ func unitExample(dim string) string {
 		return `"130 m/s", "420 ft/s"`
 	}
 	return `"1 unit"`
+}
+
+// doubleNumbers gives every number schema without a format (swag leaves it
+// out for map values and array items of float64) the format "double", the
+// OpenAPI name of a float64.
+func doubleNumbers(s *openapi3.Schema, seen map[*openapi3.Schema]bool) {
+	if s == nil || seen[s] {
+		return
+	}
+	seen[s] = true
+	if s.Type != nil && s.Type.Is("number") && (s.Format == "" || s.Format == "float64") {
+		s.Format = "double"
+	}
+	for _, p := range s.Properties {
+		if p != nil {
+			doubleNumbers(p.Value, seen)
+		}
+	}
+	if s.Items != nil {
+		doubleNumbers(s.Items.Value, seen)
+	}
+	if s.AdditionalProperties.Schema != nil {
+		doubleNumbers(s.AdditionalProperties.Schema.Value, seen)
+	}
+	for _, o := range s.OneOf {
+		if o != nil {
+			doubleNumbers(o.Value, seen)
+		}
+	}
 }

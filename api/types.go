@@ -32,7 +32,7 @@ type GasSpec struct {
 	Gamma *float64 `json:"gamma,omitempty" format:"double" minimum:"1" maximum:"1.6667" example:"1.4"`
 	// Composition maps component (formula or name, e.g. "CH4", "methane")
 	// to its fraction, for the "ideal", "peng-robinson" and "srk" models.
-	Composition map[string]float64 `json:"composition,omitempty" example:"CH4:0.9,C2H6:0.1"`
+	Composition map[string]float64 `json:"composition,omitempty" swaggertype:"object,number" example:"CH4:0.9,C2H6:0.1"`
 	// CompositionBasis says whether the fractions are mole (default) or mass fractions.
 	CompositionBasis string `json:"composition_basis,omitempty" binding:"omitempty,oneof=mole mass" enums:"mole,mass" example:"mole"`
 	// BinaryInteraction overrides the cubic-EOS kij of component pairs.
