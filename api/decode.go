@@ -183,7 +183,7 @@ func unknownFields(raw any, t reflect.Type, ptr string) fieldErrors {
 
 // escapePointer escapes a key for a JSON pointer (RFC 6901 §3).
 func escapePointer(k string) string {
-	return strings.NewReplacer("~", "~0", "/", "~1").Replace(k)
+	return strings.ReplaceAll(strings.ReplaceAll(k, "~", "~0"), "/", "~1") // "~" first (RFC 6901 §3)
 }
 
 func unknownDetail(key string, names []string) string {
