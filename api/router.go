@@ -40,6 +40,7 @@ func NewRouter(svc Services, log *slog.Logger, spec []byte) (*gin.Engine, error)
 	r.GET("/openapi/swagger.json", func(c *gin.Context) { c.Data(http.StatusOK, "application/json", spec) })
 	st := stageHandler{svc: svc, validate: newValidator(), log: log}
 	r.POST("/v1/stage/size", st.size)
+	r.POST("/v1/stage/size/batch", st.sizeBatch)
 	gh := gasHandler{svc: svc, validate: st.validate, log: log}
 	r.POST("/v1/gas/properties", gh.properties)
 	r.GET("/v1/gas/components", gh.components)

@@ -41,20 +41,23 @@ func (h stageHandler) size(c *gin.Context) {
 		fail(c, h.log, err)
 		return
 	}
-	duty, err := dutyOf(req)
-	if err != nil {
-		fail(c, h.log, err)
-		return
-	}
-	res, err := h.svc.SizeStage(c.Request.Context(), duty)
-	if err != nil {
-		fail(c, h.log, err)
-		return
-	}
-	out, err := responseOf(res)
+	out, err := h.sizeOne(c, req)
 	if err != nil {
 		fail(c, h.log, err)
 		return
 	}
 	c.JSON(http.StatusOK, out)
+}
+
+// sizeOne converts, sizes and renders one checked request.
+func (h stageHandler) sizeOne(c *gin.Context, req StageRequest) (StageResponse, error) {
+	duty, err := dutyOf(req)
+	if err != nil {
+		return StageResponse{}, err
+	}
+	res, err := h.svc.SizeStage(c.Request.Context(), duty)
+	if err != nil {
+		return StageResponse{}, err
+	}
+	return responseOf(res)
 }

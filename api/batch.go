@@ -1,0 +1,97 @@
+package api
+
+import (
+	"net/http"
+	"runtime"
+	"sync"
+
+	"github.com/gin-gonic/gin"
+)
+
+// MaxBatch is the largest number of duties one batch request may carry.
+const MaxBatch = 500
+
+// BatchRequest carries many duty points, e.g. from a process simulator.
+type BatchRequest struct {
+	// Duties are sized independently; each follows the StageRequest schema.
+	Duties []StageRequest `json:"duties" binding:"required,min=1,max=500,dive"`
+}
+
+// BatchResponse holds one result per duty, in request order.
+type BatchResponse struct {
+	Results []BatchItem `json:"results"`
+	// Succeeded and Failed count the results by outcome.
+	Succeeded int `json:"succeeded"`
+	Failed    int `json:"failed"`
+}
+
+// BatchItem is the outcome of one duty: a result (status 200) or a problem.
+type BatchItem struct {
+	// Index is the duty's position in the request, from 0.
+	Index int `json:"index"`
+	// Status is the HTTP status the duty would have had on its own.
+	Status  int            `json:"status" example:"200"`
+	Result  *StageResponse `json:"result,omitempty"`
+	Problem *Problem       `json:"problem,omitempty"`
+}
+
+// sizeBatch sizes many duties.
+//
+//	@Summary		Size many stages in one call
+//	@Description	Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a shape error in any duty rejects the whole batch with a 400 whose pointers start with /duties/INDEX.
+//	@Tags			stage
+//	@Accept			json
+//	@Produce		json
+//	@Param			batch	body		BatchRequest	true	"duty points"
+//	@Success		200		{object}	BatchResponse
+//	@Failure		400		{object}	Problem	"malformed JSON, unknown field, or a duty of the wrong shape"
+//	@Failure		500		{object}	Problem
+//	@Router			/v1/stage/size/batch [post]
+func (h stageHandler) sizeBatch(c *gin.Context) {
+	var req BatchRequest
+	if err := decodeStrict(c.Request, c.Writer, &req, h.validate); err != nil {
+		fail(c, h.log, err)
+		return
+	}
+	out := BatchResponse{Results: make([]BatchItem, len(req.Duties))}
+	work := make(chan int)
+	var wg sync.WaitGroup
+	for range min(runtime.GOMAXPROCS(0), len(req.Duties)) {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for i := range work {
+				out.Results[i] = h.one(c, i, req.Duties[i])
+			}
+		}()
+	}
+	for i := range req.Duties {
+		work <- i
+	}
+	close(work)
+	wg.Wait()
+	for _, r := range out.Results {
+		if r.Status == http.StatusOK {
+			out.Succeeded++
+		} else {
+			out.Failed++
+		}
+	}
+	c.JSON(http.StatusOK, out)
+}
+
+// one sizes duty i of a batch.
+func (h stageHandler) one(c *gin.Context, i int, r StageRequest) BatchItem {
+	item := BatchItem{Index: i}
+	res, err := h.sizeOne(c, r)
+	if err != nil {
+		p := problemFor(err)
+		if p.Status >= 500 {
+			h.log.Error("batch item failed", "index", i, "err", err)
+		}
+		item.Status, item.Problem = p.Status, &p
+		return item
+	}
+	item.Status, item.Result = http.StatusOK, &res
+	return item
+}
