@@ -58,11 +58,22 @@ type Assessment struct {
 	Margin float64
 }
 
-// Check applies rule r to value v. A non-finite value yields an error: the
-// caller must not have produced one.
+// Check applies rule r to value v and grades it (Within, Caution or
+// Critical) with the margin to the caution limit:
+//
+//	Above: margin = (caution − v)/|caution|,  Below: margin = (v − caution)/|caution|
+//
+// (margin 0 when caution is 0). Definition; the limits' sources are in
+// r.Source. A non-finite value or a non-finite caution limit (or ±Inf
+// critical limit) yields an error: the caller must not have produced one.
 func (r Rule) Check(v float64) (Assessment, error) {
 	if math.IsNaN(v) || math.IsInf(v, 0) {
 		return Assessment{}, fmt.Errorf("limits: %s: value %g is not finite", r.Code, v)
+	}
+	// A rule built by hand may carry a bad caution limit; the critical
+	// limit may be NaN (none) but never ±Inf.
+	if math.IsNaN(r.Caution) || math.IsInf(r.Caution, 0) || math.IsInf(r.Critical, 0) {
+		return Assessment{}, fmt.Errorf("limits: %s: caution limit %g and critical limit %g must be finite (critical may be NaN: none)", r.Code, r.Caution, r.Critical)
 	}
 	a := Assessment{Rule: r, Value: v, Severity: Within, Limit: r.Caution}
 	past := func(limit float64) bool {

@@ -26,8 +26,8 @@ func TestTipSpeedRules(t *testing.T) {
 	for _, tc := range cases {
 		r, err := limits.TipSpeed(tc.c)
 		require.NoError(t, err)
-		assert.Equal(t, tc.caution, r.Caution)
-		assert.Equal(t, tc.critical, r.Critical)
+		assert.InDelta(t, tc.caution, r.Caution, 1e-12)
+		assert.InDelta(t, tc.critical, r.Critical, 1e-12)
 	}
 	_, err := limits.TipSpeed("cardboard")
 	require.Error(t, err)
@@ -35,31 +35,47 @@ func TestTipSpeedRules(t *testing.T) {
 }
 
 func TestCheckGrades(t *testing.T) {
-	r, _ := limits.TipSpeed(limits.ClosedSteel)
+	// rules-of-thumb.md §1 numbers (common practice, no source); the margin
+	// and grading arithmetic are the definitions in Rule.Check.
+	r, err := limits.TipSpeed(limits.ClosedSteel)
+	require.NoError(t, err)
 	a, err := r.Check(280)
 	require.NoError(t, err)
 	assert.Equal(t, limits.Within, a.Severity)
 	assert.InDelta(t, (300-280)/300.0, a.Margin, 1e-12)
-	a, _ = r.Check(320)
+	a, err = r.Check(320)
+	require.NoError(t, err)
 	assert.Equal(t, limits.Caution, a.Severity)
-	assert.Equal(t, 300.0, a.Limit)
+	assert.InDelta(t, 300.0, a.Limit, 1e-12)
 	assert.Less(t, a.Margin, 0.0)
-	a, _ = r.Check(372)
+	a, err = r.Check(372)
+	require.NoError(t, err)
 	assert.Equal(t, limits.Critical, a.Severity)
-	assert.Equal(t, 350.0, a.Limit)
+	assert.InDelta(t, 350.0, a.Limit, 1e-12)
 	assert.Equal(t, "impeller tip speed (closed-steel) 372 m/s exceeds the critical limit of 350 m/s", a.Message())
 
 	low := limits.FlowCoefficientLow() // §5: below 0.01, no critical level
-	a, _ = low.Check(0.004)
+	a, err = low.Check(0.004)
+	require.NoError(t, err)
 	assert.Equal(t, limits.Caution, a.Severity)
 	assert.InDelta(t, -0.6, a.Margin, 1e-12)
 	assert.Contains(t, a.Message(), "is below the caution limit of 0.01")
-	a, _ = low.Check(0.05)
+	a, err = low.Check(0.05)
+	require.NoError(t, err)
 	assert.Equal(t, limits.Within, a.Severity)
 
 	_, err = r.Check(math.NaN())
 	require.Error(t, err)
 	_, err = r.Check(math.Inf(1))
+	require.Error(t, err)
+	// A hand-built rule with a NaN or infinite caution limit is refused
+	// rather than graded with a NaN margin.
+	bad := r
+	bad.Caution = math.NaN()
+	_, err = bad.Check(280)
+	require.Error(t, err)
+	bad.Caution = math.Inf(1)
+	_, err = bad.Check(280)
 	require.Error(t, err)
 }
 
@@ -69,9 +85,11 @@ func TestDischargeTemperatureRules(t *testing.T) {
 	require.NoError(t, err)
 	assert.InDelta(t, 473.15, r.Caution, 1e-9)
 	assert.InDelta(t, 503.15, r.Critical, 1e-9)
-	r, _ = limits.DischargeTemperature(limits.ServiceFouling)
+	r, err = limits.DischargeTemperature(limits.ServiceFouling)
+	require.NoError(t, err)
 	assert.InDelta(t, 373.15, r.Caution, 1e-9)
-	r, _ = limits.DischargeTemperature(limits.ServiceProcess)
+	r, err = limits.DischargeTemperature(limits.ServiceProcess)
+	require.NoError(t, err)
 	assert.InDelta(t, 448.15, r.Caution, 1e-9)
 	_, err = limits.DischargeTemperature("lava")
 	require.Error(t, err)
@@ -95,10 +113,10 @@ func TestOtherRulesHaveSources(t *testing.T) {
 		}
 	}
 	// §2, §3, §7 numbers
-	assert.Equal(t, 0.85, limits.InducerRelativeMach().Caution)
-	assert.Equal(t, 0.95, limits.InducerRelativeMach().Critical)
-	assert.Equal(t, 0.85, limits.DiffuserInletMach(true).Caution)
-	assert.Equal(t, 70.0, limits.DiffuserFlowAngle().Caution)
-	assert.Equal(t, 0.015, limits.ExitWidthNarrow().Caution)
-	assert.Equal(t, 0.01, limits.ExitWidthNarrow().Critical)
+	assert.InDelta(t, 0.85, limits.InducerRelativeMach().Caution, 1e-12)
+	assert.InDelta(t, 0.95, limits.InducerRelativeMach().Critical, 1e-12)
+	assert.InDelta(t, 0.85, limits.DiffuserInletMach(true).Caution, 1e-12)
+	assert.InDelta(t, 70.0, limits.DiffuserFlowAngle().Caution, 1e-12)
+	assert.InDelta(t, 0.015, limits.ExitWidthNarrow().Caution, 1e-12)
+	assert.InDelta(t, 0.01, limits.ExitWidthNarrow().Critical, 1e-12)
 }

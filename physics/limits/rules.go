@@ -115,28 +115,29 @@ func FlowCoefficientLow() Rule {
 		Caution: 0.01, Critical: math.NaN(), Source: commonPractice}
 }
 
-// FlowCoefficientHigh: φ above 0.15 means a large inducer Mach number and
+// FlowCoefficientHigh is the wide-stage rule: φ above 0.15 means a large inducer Mach number and
 // hub-tip ratio (rules-of-thumb.md §5, common practice, no source).
 func FlowCoefficientHigh() Rule {
 	return Rule{Code: "flow-coefficient-high", Quantity: "flow coefficient Q01/(U2 π D2²/4)", Unit: "-", Sense: Above,
 		Caution: 0.15, Critical: math.NaN(), Source: commonPractice}
 }
 
-// ExitWidthNarrow: b2/D2 caution below 0.015, critical below 0.01
+// ExitWidthNarrow is the narrow-exit rule: b2/D2 caution below 0.015, critical below 0.01
 // (rules-of-thumb.md §7, common practice, no source).
 func ExitWidthNarrow() Rule {
 	return Rule{Code: "exit-width-narrow", Quantity: "exit width ratio b2/D2", Unit: "-", Sense: Below,
 		Caution: 0.015, Critical: 0.01, Source: commonPractice + "; friction and leakage losses rise in narrow passages"}
 }
 
-// ExitWidthWide: b2/D2 caution above 0.08, critical above 0.10
+// ExitWidthWide is the wide-exit rule: b2/D2 caution above 0.08, critical above 0.10
 // (rules-of-thumb.md §7, common practice, no source).
 func ExitWidthWide() Rule {
 	return Rule{Code: "exit-width-wide", Quantity: "exit width ratio b2/D2", Unit: "-", Sense: Above,
 		Caution: 0.08, Critical: 0.10, Source: commonPractice}
 }
 
-// HeadCoefficientLow and HeadCoefficientHigh bound the polytropic head
+// HeadCoefficientLow is the lower polytropic head coefficient rule;
+// together with HeadCoefficientHigh it bounds the polytropic head
 // coefficient μp = Hp/U2²: typical 0.45-0.60, caution outside 0.35-0.70
 // (rules-of-thumb.md §6, common practice, no source).
 func HeadCoefficientLow() Rule {
@@ -144,13 +145,14 @@ func HeadCoefficientLow() Rule {
 		Caution: 0.35, Critical: math.NaN(), Source: commonPractice}
 }
 
-// HeadCoefficientHigh: see HeadCoefficientLow.
+// HeadCoefficientHigh is the upper polytropic head coefficient rule:
+// caution above 0.70 (see HeadCoefficientLow; common practice, no source).
 func HeadCoefficientHigh() Rule {
 	return Rule{Code: "head-coefficient-high", Quantity: "polytropic head coefficient Hp/U2²", Unit: "-", Sense: Above,
 		Caution: 0.70, Critical: math.NaN(), Source: commonPractice}
 }
 
-// ClosedImpellerHead: polytropic head per closed impeller, caution above
+// ClosedImpellerHead is the rule on the polytropic head per closed impeller, caution above
 // 40 kJ/kg (rules-of-thumb.md §8 gives 35-40 kJ/kg; common practice, no
 // source). Applies to closed impellers only.
 func ClosedImpellerHead() Rule {
@@ -158,7 +160,7 @@ func ClosedImpellerHead() Rule {
 		Caution: 40e3, Critical: math.NaN(), Source: commonPractice}
 }
 
-// RelativeVelocityRatio: W2/W1 below 0.7 means too much diffusion in the
+// RelativeVelocityRatio is the impeller diffusion rule: W2/W1 below 0.7 means too much diffusion in the
 // impeller (rules-of-thumb.md §8, a de Haller-type limit carried over from
 // axial practice; common practice, no source).
 func RelativeVelocityRatio() Rule {
@@ -166,7 +168,8 @@ func RelativeVelocityRatio() Rule {
 		Caution: 0.7, Critical: math.NaN(), Source: commonPractice}
 }
 
-// SpecificSpeedLow and SpecificSpeedHigh: Ns = Ω √Q01/Δh_s^0.75, best near
+// SpecificSpeedLow is the lower specific-speed rule; with
+// SpecificSpeedHigh it bounds Ns = Ω √Q01/Δh_s^0.75, best near
 // 0.6-0.8, caution outside 0.4-1.0, critical outside 0.3-1.2
 // (rules-of-thumb.md §9, from memory: Balje-type charts in Dixon & Hall).
 func SpecificSpeedLow() Rule {
@@ -174,13 +177,14 @@ func SpecificSpeedLow() Rule {
 		Caution: 0.4, Critical: 0.3, Source: "from memory: Balje-type efficiency charts as reproduced in Dixon & Hall (2014)"}
 }
 
-// SpecificSpeedHigh: see SpecificSpeedLow.
+// SpecificSpeedHigh is the upper specific-speed rule: caution above 1.0,
+// critical above 1.2 (see SpecificSpeedLow; from memory).
 func SpecificSpeedHigh() Rule {
 	return Rule{Code: "specific-speed-high", Quantity: "specific speed Ω√Q01/Δh_s^0.75", Unit: "-", Sense: Above,
 		Caution: 1.0, Critical: 1.2, Source: "from memory: Balje-type efficiency charts as reproduced in Dixon & Hall (2014)"}
 }
 
-// EyeTipRatio: an eye tip diameter above 0.7 D2 leaves little radial
+// EyeTipRatio is the eye-size rule: an eye tip diameter above 0.7 D2 leaves little radial
 // passage for the work and raises the inducer Mach number (common practice,
 // no source); critical at 0.85.
 func EyeTipRatio() Rule {
