@@ -42,6 +42,13 @@ func si(q *Quantity, dim dimension, field string, ambient float64) (*float64, er
 	return &v, nil
 }
 
+func intOr0(v *int) int {
+	if v == nil {
+		return 0
+	}
+	return *v
+}
+
 func must(v *float64) float64 {
 	if v == nil {
 		return 0
@@ -68,7 +75,8 @@ func dutyOf(r StageRequest) (service.StageDuty, error) {
 		IsentropicEfficiency: r.Efficiency.Isentropic,
 		PolytropicEfficiency: r.Efficiency.Polytropic,
 		MechanicalEfficiency: r.MechanicalEfficiency,
-		Impeller: service.ImpellerInput{BladeExitAngle: must(r.Impeller.BladeExitAngle), SlipFactor: must(r.Impeller.SlipFactor),
+		Impeller: service.ImpellerInput{BladeExitAngle: must(r.Impeller.BladeExitAngle), SlipFactor: r.Impeller.SlipFactor,
+			SlipCorrelation: r.Impeller.SlipCorrelation, BladeCount: intOr0(r.Impeller.BladeCount),
 			PowerInputFactor: r.Impeller.PowerInputFactor, Construction: r.Impeller.Construction,
 			Inlet: service.InletInput{Type: r.Impeller.Inlet.Type, DiameterRatio: r.Impeller.Inlet.DiameterRatio, HubRatio: r.Impeller.Inlet.HubRatio}},
 	}
@@ -163,7 +171,7 @@ func responseOf(res service.StageResult) (StageResponse, error) {
 			RelativeVelocityRatio: v.RelativeVelocityRatio, MachineMach: v.MachineMach},
 		Geometry: GeometryOut{TipDiameter: float64(g.TipDiameter), InletDiameter: float64(g.InletDiameter),
 			InletWidth: float64(g.InletWidth), ExitWidth: float64(g.ExitWidth)},
-		Coefficients: CoefficientsOut{Flow: c.FlowCoefficient, ExitFlow: v.FlowCoefficientExit, Work: c.WorkCoefficient,
+		Coefficients: CoefficientsOut{Slip: res.SlipFactor, Flow: c.FlowCoefficient, ExitFlow: v.FlowCoefficientExit, Work: c.WorkCoefficient,
 			PolytropicHead: c.PolytropicHeadCoefficient, SpecificSpeed: c.SpecificSpeed, ExitWidthRatio: c.ExitWidthRatio,
 			InletDiameterRatio: c.InletTipRatio},
 		Stations: StationsOut{

@@ -117,7 +117,7 @@ func validationDetail(fe validator.FieldError) string {
 	case "required":
 		return name + " is required"
 	case "required_without":
-		return fmt.Sprintf("give %s or %s", fe.Field(), jsonName(fe.Param()))
+		return fmt.Sprintf("%s is required, unless %s is given", name, jsonName(fe.Param()))
 	case "excluded_with":
 		return fmt.Sprintf("give only one of %s and %s", fe.Field(), jsonName(fe.Param()))
 	case "oneof":

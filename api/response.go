@@ -117,6 +117,8 @@ type GeometryOut struct {
 
 // CoefficientsOut are the non-dimensional groups.
 type CoefficientsOut struct {
+	// Slip is the slip factor used (given, or from the slip correlation).
+	Slip float64 `json:"slip_factor" format:"double"`
 	// Flow is φ = Q01 / (U2 π D2²/4).
 	Flow float64 `json:"flow" format:"double"`
 	// ExitFlow is φ2 = cr2/U2.

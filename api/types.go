@@ -92,7 +92,14 @@ type ImpellerSpec struct {
 	BladeExitAngle *float64 `json:"blade_exit_angle" binding:"required" format:"double" minimum:"0" maximum:"75" example:"0"`
 	// SlipFactor is 1 − slip velocity / tip speed, so that
 	// cθ2 = U2 (slip_factor − φ2 tan(blade_exit_angle)), in (0, 1].
-	SlipFactor *float64 `json:"slip_factor" binding:"required" format:"double" minimum:"0" maximum:"1" example:"0.9"`
+	// Give it, or slip_correlation with blade_count.
+	SlipFactor *float64 `json:"slip_factor,omitempty" binding:"required_without=SlipCorrelation" format:"double" minimum:"0" maximum:"1" example:"0.9"`
+	// SlipCorrelation computes the slip factor when slip_factor is not
+	// given: "wiesner" (1967, with its inlet-radius correction), "stanitz"
+	// or "stodola".
+	SlipCorrelation string `json:"slip_correlation,omitempty" binding:"omitempty,oneof=wiesner stanitz stodola" enums:"wiesner,stanitz,stodola" example:"wiesner"`
+	// BladeCount is the number of blades at the impeller exit (with slip_correlation).
+	BladeCount *int `json:"blade_count,omitempty" minimum:"2" maximum:"60" example:"17"`
 	// PowerInputFactor is actual work over Euler work (>= 1; disc friction
 	// and windage); default 1.
 	PowerInputFactor *float64  `json:"power_input_factor,omitempty" format:"double" minimum:"1" example:"1.04"`

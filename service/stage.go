@@ -73,8 +73,12 @@ type InletInput struct {
 
 // ImpellerInput is the blading.
 type ImpellerInput struct {
-	BladeExitAngle         float64    `json:"blade_exit_angle"`
-	SlipFactor             float64    `json:"slip_factor"`
+	BladeExitAngle float64 `json:"blade_exit_angle"`
+	// SlipFactor is the slip factor given; nil when SlipCorrelation and
+	// BladeCount select a published correlation instead.
+	SlipFactor             *float64   `json:"slip_factor,omitempty"`
+	SlipCorrelation        string     `json:"slip_correlation,omitempty"`
+	BladeCount             int        `json:"blade_count,omitempty"`
 	PowerInputFactor       *float64   `json:"power_input_factor,omitempty"`
 	Inlet                  InletInput `json:"inlet"`
 	ExitMeridionalVelocity float64    `json:"exit_meridional_velocity"`
@@ -164,7 +168,9 @@ type WaterDewPoints struct {
 
 // StageResult is a sized stage.
 type StageResult struct {
-	WaterDewPoints    WaterDewPoints
+	WaterDewPoints WaterDewPoints
+	// SlipFactor used: given, or from the correlation.
+	SlipFactor        float64
 	MassFlow          float64
 	SuctionVolumeFlow float64
 	Speed             float64
@@ -271,6 +277,13 @@ func (s *Service) SizeStage(ctx context.Context, d StageDuty) (StageResult, erro
 	if err != nil {
 		return StageResult{}, sizingError(err)
 	}
+	if d.Impeller.SlipFactor == nil {
+		sz, imp, err = refineSlip(d.Impeller, duty, imp, inlet, sz, prov)
+		if err != nil {
+			return StageResult{}, err
+		}
+	}
+	res.SlipFactor = imp.SlipFactor
 	res.Sizing = sz
 	prov.Methods = append(prov.Methods,
 		Method{Subject: "stage sizing", Name: "Euler work with slip and power input factor; continuity at station static densities",
@@ -396,8 +409,27 @@ func checkedEff(b path.Basis, v float64, field string) (path.Efficiency, string,
 
 func (s *Service) impeller(d StageDuty, prov *Provenance) (stage.Impeller, error) {
 	in := d.Impeller
-	imp := stage.Impeller{BladeExitAngle: in.BladeExitAngle, SlipFactor: in.SlipFactor,
+	imp := stage.Impeller{BladeExitAngle: in.BladeExitAngle,
 		PowerInputFactor: DefaultPowerInputFactor, ExitMeridionalVelocity: physics.MeterPerS(in.ExitMeridionalVelocity)}
+	switch {
+	case in.SlipFactor != nil && (in.SlipCorrelation != "" || in.BladeCount != 0):
+		return imp, shapeErr("impeller.slip_correlation", errors.New("give slip_factor, or slip_correlation with blade_count, not both"))
+	case in.SlipFactor != nil:
+		imp.SlipFactor = *in.SlipFactor
+	case in.SlipCorrelation == "":
+		return imp, shapeErr("impeller.slip_factor", errors.New("slip_factor is required, unless slip_correlation (wiesner, stanitz or stodola) and blade_count are given"))
+	default:
+		if in.BladeCount == 0 {
+			return imp, shapeErr("impeller.blade_count", fmt.Errorf("slip correlation %s needs blade_count, the number of blades at the impeller exit", in.SlipCorrelation))
+		}
+		// First estimate; Wiesner's inlet-radius correction is applied
+		// once the inlet diameter is known (refineSlip).
+		sigma, err := slipFrom(in, 0)
+		if err != nil {
+			return imp, err
+		}
+		imp.SlipFactor = sigma
+	}
 	if in.PowerInputFactor != nil {
 		imp.PowerInputFactor = *in.PowerInputFactor
 	} else {

@@ -36,7 +36,7 @@ func size(t *testing.T, d service.StageDuty) service.StageResult {
 func TestSaravanamuttooThroughService(t *testing.T) {
 	d := service.StageDuty{Gas: textbookAir(), SuctionPressure: 1.1e5, SuctionTemperature: 295,
 		PressureRatio: f(4.241), MassFlow: f(9), Speed: 17400, IsentropicEfficiency: f(0.78),
-		Impeller: service.ImpellerInput{SlipFactor: 0.9, PowerInputFactor: f(1.04), ExitMeridionalVelocity: 142.6,
+		Impeller: service.ImpellerInput{SlipFactor: f(0.9), PowerInputFactor: f(1.04), ExitMeridionalVelocity: 142.6,
 			Inlet: service.InletInput{Type: "axial-eye", HubRatio: f(0.5), MeridionalVelocity: 142.6}}}
 	res := size(t, d)
 	assert.InEpsilon(t, 193.26, float64(res.Path.Work)/1005, 1e-3)
@@ -62,7 +62,7 @@ func TestSaravanamuttooThroughService(t *testing.T) {
 func TestDixonShaftPower(t *testing.T) {
 	d := service.StageDuty{Gas: textbookAir(), SuctionPressure: 1e5, SuctionTemperature: 295.15,
 		PressureRatio: f(4.2), MassFlow: f(2), Speed: 15000, IsentropicEfficiency: f(0.83), MechanicalEfficiency: f(0.97),
-		Impeller: service.ImpellerInput{SlipFactor: 1 - 2.0/17, ExitMeridionalVelocity: 50.16,
+		Impeller: service.ImpellerInput{SlipFactor: f(1 - 2.0/17), ExitMeridionalVelocity: 50.16,
 			Inlet: service.InletInput{Type: "radial", DiameterRatio: f(0.45), MeridionalVelocity: 100}}}
 	res := size(t, d)
 	assert.InEpsilon(t, 373.5e3, res.Power.Shaft, 1e-3)
@@ -76,7 +76,7 @@ func TestDixonShaftPower(t *testing.T) {
 func TestGanesanDiameter(t *testing.T) {
 	d := service.StageDuty{Gas: textbookAir(), SuctionPressure: 1e5, SuctionTemperature: 294,
 		DischargePressure: f(4e5), MassFlow: f(10), Speed: 11500, IsentropicEfficiency: f(0.765),
-		Impeller: service.ImpellerInput{SlipFactor: 0.92, ExitMeridionalVelocity: 120,
+		Impeller: service.ImpellerInput{SlipFactor: f(0.92), ExitMeridionalVelocity: 120,
 			Inlet: service.InletInput{Type: "radial", DiameterRatio: f(0.5), MeridionalVelocity: 110}}}
 	res := size(t, d)
 	assert.InEpsilon(t, 0.75, float64(res.Sizing.Geometry.TipDiameter), 1.5e-3)
@@ -91,7 +91,7 @@ func TestPolytropicIdealGas(t *testing.T) {
 	d := service.StageDuty{Gas: service.GasInput{Model: "ideal-constant", Cp: f(1.4 * r / 0.4), Gamma: f(1.4)},
 		SuctionPressure: 1e5, SuctionTemperature: 300, PressureRatio: f(3), MassFlow: f(4), Speed: 20000,
 		PolytropicEfficiency: f(0.8),
-		Impeller: service.ImpellerInput{BladeExitAngle: 30, SlipFactor: 0.88, ExitMeridionalVelocity: 100,
+		Impeller: service.ImpellerInput{BladeExitAngle: 30, SlipFactor: f(0.88), ExitMeridionalVelocity: 100,
 			Inlet: service.InletInput{Type: "axial-eye", HubRatio: f(0.35), MeridionalVelocity: 130}}}
 	for _, method := range []string{"stepwise", "schultz"} {
 		d.PolytropicMethod = method
@@ -110,7 +110,7 @@ func fuelGas(model string) service.GasInput {
 func fuelGasDuty(model string) service.StageDuty {
 	return service.StageDuty{Gas: fuelGas(model), SuctionPressure: 25e5, SuctionTemperature: 303.15,
 		DischargePressure: f(38e5), MassFlow: f(12), Speed: 14500, PolytropicEfficiency: f(0.8),
-		Impeller: service.ImpellerInput{BladeExitAngle: 40, SlipFactor: 0.86, PowerInputFactor: f(1.02), ExitMeridionalVelocity: 65,
+		Impeller: service.ImpellerInput{BladeExitAngle: 40, SlipFactor: f(0.86), PowerInputFactor: f(1.02), ExitMeridionalVelocity: 65,
 			Inlet: service.InletInput{Type: "axial-eye", HubRatio: f(0.4), MeridionalVelocity: 60}}}
 }
 
@@ -147,7 +147,7 @@ func TestIdealLimitOfRealModels(t *testing.T) {
 		d := service.StageDuty{Gas: service.GasInput{Model: m, Composition: map[string]float64{"N2": 1}},
 			SuctionPressure: 101325, SuctionTemperature: 300, PressureRatio: f(1.8), MassFlow: f(2), Speed: 20000,
 			IsentropicEfficiency: f(0.8),
-			Impeller: service.ImpellerInput{BladeExitAngle: 30, SlipFactor: 0.88, ExitMeridionalVelocity: 90,
+			Impeller: service.ImpellerInput{BladeExitAngle: 30, SlipFactor: f(0.88), ExitMeridionalVelocity: 90,
 				Inlet: service.InletInput{Type: "axial-eye", HubRatio: f(0.3), MeridionalVelocity: 120}}}
 		heads = append(heads, float64(size(t, d).Path.IsentropicHead))
 	}
@@ -162,7 +162,7 @@ func TestStandardVolumeFlow(t *testing.T) {
 	d := service.StageDuty{Gas: service.GasInput{Model: "ideal", Composition: map[string]float64{"methane": 1}},
 		SuctionPressure: 20e5, SuctionTemperature: 300, PressureRatio: f(1.5), StandardVolumeFlow: f(0.32774128 * 30),
 		StandardReference: "us-standard", Speed: 15000, IsentropicEfficiency: f(0.8),
-		Impeller: service.ImpellerInput{BladeExitAngle: 40, SlipFactor: 0.86, ExitMeridionalVelocity: 60,
+		Impeller: service.ImpellerInput{BladeExitAngle: 40, SlipFactor: f(0.86), ExitMeridionalVelocity: 60,
 			Inlet: service.InletInput{Type: "axial-eye", HubRatio: f(0.4), MeridionalVelocity: 60}}}
 	res := size(t, d)
 	rho := 101325.353 * 0.0160428 / (physics.UniversalGasConstant * 288.705556)
@@ -175,7 +175,7 @@ func TestHumidAirAddsWater(t *testing.T) {
 	d := service.StageDuty{Gas: service.GasInput{Model: "ideal", Composition: map[string]float64{"air": 1}, RelativeHumidity: f(0.75)},
 		SuctionPressure: 99500, SuctionTemperature: 303.15, PressureRatio: f(1.9), MassFlow: f(3), Speed: 18000,
 		IsentropicEfficiency: f(0.82),
-		Impeller: service.ImpellerInput{BladeExitAngle: 45, SlipFactor: 0.87, ExitMeridionalVelocity: 90,
+		Impeller: service.ImpellerInput{BladeExitAngle: 45, SlipFactor: f(0.87), ExitMeridionalVelocity: 90,
 			Inlet: service.InletInput{Type: "axial-eye", HubRatio: f(0.3), MeridionalVelocity: 120}}}
 	res := size(t, d)
 	xw := 0.75 * 4247.0 / 99500
@@ -196,7 +196,7 @@ func TestInputErrorsNameTheirField(t *testing.T) {
 	base := func() service.StageDuty {
 		return service.StageDuty{Gas: textbookAir(), SuctionPressure: 1e5, SuctionTemperature: 300,
 			PressureRatio: f(2.5), MassFlow: f(3), Speed: 20000, IsentropicEfficiency: f(0.8),
-			Impeller: service.ImpellerInput{BladeExitAngle: 30, SlipFactor: 0.88, ExitMeridionalVelocity: 100,
+			Impeller: service.ImpellerInput{BladeExitAngle: 30, SlipFactor: f(0.88), ExitMeridionalVelocity: 100,
 				Inlet: service.InletInput{Type: "axial-eye", HubRatio: f(0.35), MeridionalVelocity: 130}}}
 	}
 	cases := []struct {
@@ -210,8 +210,8 @@ func TestInputErrorsNameTheirField(t *testing.T) {
 		{"efficiency 0", func(d *service.StageDuty) { d.IsentropicEfficiency = f(0) }, "efficiency.isentropic", false},
 		{"efficiency 1.2", func(d *service.StageDuty) { d.IsentropicEfficiency = nil; d.PolytropicEfficiency = f(1.2) }, "efficiency.polytropic", false},
 		{"efficiency NaN", func(d *service.StageDuty) { d.IsentropicEfficiency = f(math.NaN()) }, "efficiency.isentropic", false},
-		{"slip 0", func(d *service.StageDuty) { d.Impeller.SlipFactor = 0 }, "impeller.slip_factor", false},
-		{"slip 1.5", func(d *service.StageDuty) { d.Impeller.SlipFactor = 1.5 }, "impeller.slip_factor", false},
+		{"slip 0", func(d *service.StageDuty) { d.Impeller.SlipFactor = f(0) }, "impeller.slip_factor", false},
+		{"slip 1.5", func(d *service.StageDuty) { d.Impeller.SlipFactor = f(1.5) }, "impeller.slip_factor", false},
 		{"speed too low", func(d *service.StageDuty) { d.Speed = 200 }, "speed", false},
 		{"speed too high", func(d *service.StageDuty) { d.Speed = 150000 }, "speed", false},
 		{"speed zero", func(d *service.StageDuty) { d.Speed = 0 }, "speed", false},
@@ -295,12 +295,56 @@ func BenchmarkSizeStageIdealConstant(b *testing.B) {
 	svc := service.New()
 	d := service.StageDuty{Gas: textbookAir(), SuctionPressure: 1e5, SuctionTemperature: 300,
 		PressureRatio: f(2.5), MassFlow: f(3), Speed: 20000, PolytropicEfficiency: f(0.82),
-		Impeller: service.ImpellerInput{BladeExitAngle: 30, SlipFactor: 0.88, ExitMeridionalVelocity: 100,
+		Impeller: service.ImpellerInput{BladeExitAngle: 30, SlipFactor: f(0.88), ExitMeridionalVelocity: 100,
 			Inlet: service.InletInput{Type: "axial-eye", HubRatio: f(0.35), MeridionalVelocity: 130}}}
 	b.ReportAllocs()
 	for b.Loop() {
 		if _, err := svc.SizeStage(context.Background(), d); err != nil {
 			b.Fatal(err)
 		}
+	}
+}
+
+// TestSlipCorrelations: stage-examples.md §7 (formulas from memory,
+// numbers computed there): Wiesner σ = 0.8727 for 19 radial blades below
+// its limiting radius ratio 0.6509; Stodola with 12 blades at 30 deg is
+// 1 − π cos 30°/12 = 0.7733 in our convention (σ = 1 − Δcθ/U2, the pack's
+// 0.7258 is Dixon's σ_D at φ2 = 0.3, see physics/stage TestSlipCorrelations).
+func TestSlipCorrelations(t *testing.T) {
+	base := func(corr string, z int, beta float64, inlet service.InletInput) service.StageDuty {
+		return service.StageDuty{Gas: textbookAir(), SuctionPressure: 1e5, SuctionTemperature: 300,
+			PressureRatio: f(2.5), MassFlow: f(3), Speed: 20000, IsentropicEfficiency: f(0.8),
+			Impeller: service.ImpellerInput{BladeExitAngle: beta, SlipCorrelation: corr, BladeCount: z,
+				ExitMeridionalVelocity: 100, Inlet: inlet}}
+	}
+	radial := service.InletInput{Type: "radial", DiameterRatio: f(0.4), MeridionalVelocity: 90}
+	res := size(t, base("wiesner", 19, 0, radial))
+	assert.InDelta(t, 0.8727, res.SlipFactor, 1e-4)
+	res = size(t, base("stodola", 12, 30, radial))
+	assert.InDelta(t, 1-math.Pi*math.Cos(math.Pi/6)/12, res.SlipFactor, 1e-12) // definition of the form
+	assert.InDelta(t, 0.7733, res.SlipFactor, 1e-4)
+	// Axial eye with a large eye: Wiesner's correction applies and the
+	// iteration must end self-consistent (σ from the final r1/r2).
+	eye := service.InletInput{Type: "axial-eye", HubRatio: f(0.3), MeridionalVelocity: 60}
+	res = size(t, base("wiesner", 8, 40, eye))
+	r := res.Sizing.Coefficients.InletTipRatio
+	lim := math.Exp(-8.16 * math.Cos(40*math.Pi/180) / 8)
+	require.Greater(t, r, lim, "the case must exercise the correction")
+	want := (1 - math.Sqrt(math.Cos(40*math.Pi/180))/math.Pow(8, 0.7)) * (1 - math.Pow((r-lim)/(1-lim), 3))
+	assert.InDelta(t, want, res.SlipFactor, 1e-8)
+
+	for name, d := range map[string]service.StageDuty{
+		"no blade count": base("wiesner", 0, 0, radial),
+		"both given": func() service.StageDuty {
+			d := base("stanitz", 12, 0, radial)
+			d.Impeller.SlipFactor = f(0.9)
+			return d
+		}(),
+		"neither given": base("", 0, 0, radial),
+		"unknown name":  base("guesswork", 12, 0, radial),
+		"one blade":     base("stanitz", 1, 0, radial),
+	} {
+		_, err := service.New().SizeStage(context.Background(), d)
+		require.ErrorIs(t, err, service.ErrInput, name)
 	}
 }
