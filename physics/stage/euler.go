@@ -55,13 +55,16 @@ func EulerWork(u2 physics.MeterPerS, slip, powerInput, bladeExitAngle float64, c
 
 // Whirl returns the absolute tangential velocity at impeller exit,
 // cθ2 = U2 σ − cr2 tan β2' (Dixon & Hall 2014, §7.9 with σ = 1 − Δcθ/U2).
-// It does not check its inputs; callers pass checked values.
+// Valid for the ranges of TipSpeed (u2 > 0, 0 < σ ≤ 1, 0 ≤ β2' ≤ 75°,
+// cr2 ≥ 0). It does not check its inputs, and NaN in gives NaN out;
+// callers pass checked values.
 func Whirl(u2 physics.MeterPerS, slip, bladeExitAngle float64, cr2 physics.MeterPerS) physics.MeterPerS {
 	return physics.MeterPerS(float64(u2)*slip - float64(cr2)*math.Tan(bladeExitAngle*math.Pi/180))
 }
 
 // TipDiameter returns D2 = 60 U2 / (π N) for tip speed u2 at rotational
-// speed n (rev/min). Definition of peripheral speed.
+// speed n (rev/min). Definition of peripheral speed. Valid for finite
+// u2 > 0 and n > 0.
 func TipDiameter(u2 physics.MeterPerS, n physics.RevPerMin) (physics.Meter, error) {
 	switch {
 	case !(u2 > 0) || math.IsInf(float64(u2), 0):
@@ -74,7 +77,8 @@ func TipDiameter(u2 physics.MeterPerS, n physics.RevPerMin) (physics.Meter, erro
 }
 
 // PeripheralSpeed returns U = π D N / 60 for diameter d (m) at speed n
-// (rev/min). It does not check its inputs.
+// (rev/min). Definition of peripheral speed. Valid for finite d ≥ 0 and
+// n ≥ 0; it does not check its inputs, and NaN in gives NaN out.
 func PeripheralSpeed(d physics.Meter, n physics.RevPerMin) physics.MeterPerS {
 	return physics.MeterPerS(math.Pi * float64(d) * float64(n) / 60)
 }

@@ -1,6 +1,7 @@
 package stage
 
 import (
+	"fmt"
 	"math"
 
 	"stagewright/physics"
@@ -17,12 +18,19 @@ import (
 //	σ = 1 − π cos β2' / z
 //
 // Source: A. Stodola, Steam and Gas Turbines (1927); in Dixon & Hall
-// (2014), eq. 7.18 (form from memory). Valid for 2 ≤ z ≤ 60, 0 ≤ β2' ≤ 75°.
+// (2014), eq. 7.18 (form from memory). Valid for 2 ≤ z ≤ 60, 0 ≤ β2' ≤ 75°
+// where the result is positive: a few radial blades (z ≤ 3 at β2' = 0)
+// give σ ≤ 0, which is returned as a DomainError.
 func StodolaSlip(z int, bladeExitAngle float64) (float64, error) {
 	if err := checkBlades(z, bladeExitAngle); err != nil {
 		return 0, err
 	}
-	return 1 - math.Pi*math.Cos(rad(bladeExitAngle))/float64(z), nil
+	sigma := 1 - math.Pi*math.Cos(rad(bladeExitAngle))/float64(z)
+	if !(sigma > 0) {
+		return 0, &physics.DomainError{Name: "blade_count", Value: float64(z), Want: "enough blades for a positive Stodola slip factor",
+			Reason: fmt.Sprintf("Stodola's slip factor 1 − π cos β2'/z is %.3g for %d blades at %g deg: it needs more blades (or more backsweep) to be positive", sigma, z, bladeExitAngle)}
+	}
+	return sigma, nil
 }
 
 // StanitzSlip returns Stanitz's slip factor:
@@ -68,7 +76,8 @@ func WiesnerSlip(z int, bladeExitAngle, radiusRatio float64) (float64, error) {
 
 // WiesnerLimitRatio returns ε_lim = exp(−8.16 cos β2' / z), the inlet/exit
 // radius ratio above which Wiesner's correlation needs its correction
-// (source as WiesnerSlip). It does not check its inputs.
+// (source as WiesnerSlip). Valid for 2 ≤ z ≤ 60, 0 ≤ β2' ≤ 75° (the range
+// of WiesnerSlip); it does not check its inputs, and NaN in gives NaN out.
 func WiesnerLimitRatio(z int, bladeExitAngle float64) float64 {
 	return math.Exp(-8.16 * math.Cos(rad(bladeExitAngle)) / float64(z))
 }

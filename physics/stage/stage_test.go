@@ -71,9 +71,12 @@ func TestTipSpeedBackswept(t *testing.T) {
 		require.NoError(t, err)
 		assert.InEpsilon(t, 60e3, float64(w), 1e-12, "beta %v", beta)
 	}
-	// More backsweep needs more tip speed for the same work.
-	u30, _ := stage.TipSpeed(60e3, 0.88, 1.02, 30, 95)
-	u50, _ := stage.TipSpeed(60e3, 0.88, 1.02, 50, 95)
+	// More backsweep needs more tip speed for the same work (follows from
+	// Dixon & Hall 2014 eq. 7.1: cθ2 falls as tan β2' grows).
+	u30, err := stage.TipSpeed(60e3, 0.88, 1.02, 30, 95)
+	require.NoError(t, err)
+	u50, err := stage.TipSpeed(60e3, 0.88, 1.02, 50, 95)
+	require.NoError(t, err)
 	assert.Greater(t, float64(u50), float64(u30))
 }
 
@@ -157,6 +160,18 @@ func TestSlipCorrelations(t *testing.T) {
 	hi, err := stage.WiesnerSlip(19, 0, 0.8)
 	require.NoError(t, err)
 	assert.Less(t, hi, 0.8727)
+	// Wiesner's correction factor 1 − ((r − ε)/(1 − ε))³ (WiesnerSlip doc,
+	// form from memory) with the §7 values σ = 0.8727, ε = 0.6509.
+	assert.InDelta(t, 0.8727*(1-math.Pow((0.8-0.6509)/(1-0.6509), 3)), hi, 2e-4)
+	// Stodola's σ = 1 − π/z is not positive for z ≤ 3 radial blades: an
+	// error, not a negative slip factor (σ = 1 − π/3 = −0.047, definition).
+	for _, z := range []int{2, 3} {
+		_, err := stage.StodolaSlip(z, 0)
+		require.ErrorIs(t, err, physics.ErrDomain, "z = %d", z)
+	}
+	st4, err := stage.StodolaSlip(4, 0)
+	require.NoError(t, err)
+	assert.InDelta(t, 1-math.Pi/4, st4, 1e-12) // definition, eq. of StodolaSlip
 	for _, bad := range []struct {
 		z    int
 		beta float64

@@ -1,0 +1,41 @@
+package stage_test
+
+import (
+	"fmt"
+
+	"stagewright/physics/stage"
+)
+
+// Radial blades with Saravanamuttoo et al. (2009) Example 4.1 constants
+// (σ = 0.9, ψ = 1.04, from memory; stage-examples.md §2): the tip speed
+// for Δh0 = 1005 × 193.26 J/kg and the tip diameter at 17 400 rev/min.
+func ExampleTipSpeed() {
+	u2, err := stage.TipSpeed(1005*193.26, 0.9, 1.04, 0, 0)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	d2, err := stage.TipDiameter(u2, 17400)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Printf("U2 = %.1f m/s, D2 = %.3f m\n", u2, d2)
+	// Output: U2 = 455.5 m/s, D2 = 0.500 m
+}
+
+// Slip factors for 19 radial blades (stage-examples.md §7).
+func ExampleWiesnerSlip() {
+	w, err := stage.WiesnerSlip(19, 0, 0.4)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	s, err := stage.StodolaSlip(19, 0)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Printf("Wiesner %.4f, Stodola %.4f\n", w, s)
+	// Output: Wiesner 0.8727, Stodola 0.8347
+}
