@@ -278,15 +278,25 @@ func normName(s string) string {
 // *physics.DomainError naming it that also matches ErrUnknownComponent.
 func LookupComponent(name string) (Component, error) {
 	if c, ok := lookupIndex()[normName(name)]; ok && name != "" {
-		return c, nil
+		return c.clone(), nil
 	}
 	return Component{}, unknownComponent(name)
 }
 
+// clone returns c with its own copies of every slice, so that a caller
+// who changes the returned component cannot change the shared index.
+func (c Component) clone() Component {
+	c.Names = append([]string(nil), c.Names...)
+	c.Sources = append([]string(nil), c.Sources...)
+	c.HeatCapacity.Ranges = append([]CpRange(nil), c.HeatCapacity.Ranges...)
+	c.HeatCapacity.Blend = append([]BlendTerm(nil), c.HeatCapacity.Blend...)
+	return c
+}
+
 // lookupIndex maps every folded id and alias to its component. It is built
 // once, on first use, and never changed afterwards (an immutable value, not
-// mutable package state); callers get copies of the Component structs and
-// must not modify the Names or Sources slices they share.
+// mutable package state); LookupComponent hands out deep copies (clone), so
+// no caller can reach the index's slices.
 var lookupIndex = sync.OnceValue(func() map[string]Component {
 	idx := map[string]Component{}
 	for _, c := range Components() {

@@ -66,6 +66,15 @@ func TestCatalogueAgainstCriticalConstants(t *testing.T) {
 	// fresh slices: mutating one result does not change the next
 	cat[0].Names[0] = "changed"
 	assert.NotEqual(t, "changed", gas.Components()[0].Names[0])
+	// the same for LookupComponent, which reads a shared index
+	n2, err := gas.LookupComponent("N2")
+	require.NoError(t, err)
+	n2.Names[0] = "changed"
+	n2.HeatCapacity.Ranges[0].Coef[0] = -1
+	again, err := gas.LookupComponent("N2")
+	require.NoError(t, err)
+	assert.NotEqual(t, "changed", again.Names[0])
+	assert.Greater(t, again.HeatCapacity.Ranges[0].Coef[0], 0.0)
 }
 
 func TestNewCompositionMassBasis(t *testing.T) {

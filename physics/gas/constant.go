@@ -21,7 +21,8 @@ const (
 // Source: Y. A. Çengel and M. A. Boles, Thermodynamics: An Engineering
 // Approach, 6th ed. (2008), ch. 7 (entropy change of ideal gases with
 // constant specific heats). Valid where the gas is far from condensation
-// and cp varies little over the path.
+// and cp varies little over the path. The zero value is not usable: build
+// one with NewConstant.
 type Constant struct {
 	cp    float64
 	gamma float64
@@ -61,8 +62,16 @@ func (c Constant) State(t physics.Kelvin, p physics.Pascal) (State, error) {
 	if err := checkTP(t, p); err != nil {
 		return State{}, err
 	}
+	if !(c.cp > 0) {
+		return State{}, &physics.DomainError{Name: "cp", Value: c.cp, Want: "a model built by NewConstant",
+			Reason: "the constant-property gas has no heat capacity: build it with NewConstant"}
+	}
 	tt, pp := float64(t), float64(p)
 	s := c.cp*math.Log(tt/float64(ReferenceTemperature)) - c.r*math.Log(pp/float64(ReferencePressure))
+	if rho := pp / (c.r * tt); !physics.Finite(rho, c.cp*tt) {
+		return State{}, &physics.DomainError{Name: "temperature", Value: tt, Want: "a state with a finite density",
+			Reason: "the temperature is so close to 0 K (or the pressure so high) that the perfect-gas density is not a finite number"}
+	}
 	return State{
 		Temperature:        t,
 		Pressure:           p,

@@ -29,7 +29,7 @@ func TemperatureSolve(stateAt func(physics.Kelvin) (State, error), target float6
 		return State{}, err
 	}
 	fLo, fHi := value(sLo)-target, value(sHi)-target
-	if fLo > 0 || fHi < 0 {
+	if !(fLo <= 0) || !(fHi >= 0) { // written so that a NaN value fails too
 		return State{}, &physics.DomainError{Name: "target", Value: target,
 			Want:   "a value reached between the model's temperature limits",
 			Reason: "the requested state lies outside the temperature range of the gas model"}
