@@ -11,7 +11,7 @@ import (
 )
 
 // component holds critical constants copied from
-// /work/shared/reference/critical-constants.csv (columns Tc_K, Pc_kPa,
+// testdata/reference/critical-constants.csv (columns Tc_K, Pc_kPa,
 // acentric_factor, molar_mass_g_per_mol); each row names the reference EOS
 // the file took them from.
 type component struct {
@@ -54,7 +54,7 @@ func newMixture(t testing.TB, kind cubic.Kind, kij [][]float64, comps ...compone
 }
 
 // TestPureStatesAgainstReferencePack reproduces the PR_Z_calc column of
-// /work/shared/reference/real-gas-checks.csv ("computed here" there with the
+// testdata/reference/real-gas-checks.csv ("computed here" there with the
 // same constants and R = 8.314462618: agreement to 0.01 % expected), checks
 // the PR density against the reference-EOS density within the file's
 // suggested_PR_tol (common practice, no source) and the PR and SRK density

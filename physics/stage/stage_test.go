@@ -12,8 +12,8 @@ import (
 	"stagewright/physics/stage"
 )
 
-// Reference values below come from ../shared/reference/stage-examples.md
-// (copied into testdata/reference/stage-examples.md). Its "computed here"
+// Reference values below come from the reference pack
+// (testdata/reference/stage-examples.md in the repository). Its "computed here"
 // columns are recomputed from the published inputs; book answers that the
 // pack recalls from memory are labelled "from memory".
 
