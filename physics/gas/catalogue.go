@@ -283,6 +283,16 @@ func LookupComponent(name string) (Component, error) {
 	return Component{}, unknownComponent(name)
 }
 
+// componentID returns the catalogue id of a component name without
+// copying the component (for hot paths that only compare identities).
+func componentID(name string) (string, bool) {
+	c, ok := lookupIndex()[normName(name)]
+	if !ok || name == "" {
+		return "", false
+	}
+	return c.ID, true
+}
+
 // clone returns c with its own copies of every slice, so that a caller
 // who changes the returned component cannot change the shared index.
 func (c Component) clone() Component {

@@ -133,12 +133,12 @@ func interactionMatrix(model string, c Composition, kij []BinaryParameter) ([][]
 		k[i] = make([]float64, n)
 	}
 	index := func(name string) int {
-		cc, err := LookupComponent(name)
-		if err != nil {
+		id, ok := componentID(name)
+		if !ok {
 			return -1
 		}
 		for i := 0; i < n; i++ {
-			if c.comps[i].ID == cc.ID {
+			if c.comps[i].ID == id {
 				return i
 			}
 		}
