@@ -47,6 +47,11 @@ func TestStageProblems(t *testing.T) {
 			status: 400, kind: "invalid-request", pointers: []string{"/gas/extra"}, detail: `unknown field "extra"`},
 		{name: "two unknown fields", body: duty(t, demoDuty, rename("suction.pressure", "presure"), rename("impeller.slip_factor", "slip")),
 			status: 400, kind: "invalid-request", pointers: []string{"/suction/presure", "/impeller/slip"}, detail: "unknown field"},
+		// RFC 6901 §3: "~" is written "~0" and "/" is written "~1" in a pointer.
+		{name: "unknown key with a slash", body: duty(t, demoDuty, set("suction.a/b", 1)),
+			status: 400, kind: "invalid-request", pointers: []string{"/suction/a~1b"}, detail: `unknown field "a/b"`},
+		{name: "unknown key with a tilde", body: duty(t, demoDuty, set("m~n", 1)),
+			status: 400, kind: "invalid-request", pointers: []string{"/m~0n"}, detail: `unknown field "m~n"`},
 		// encoding/json matches keys case-insensitively; the API must not.
 		{name: "miscased nested field", body: duty(t, demoDuty, rename("suction.pressure", "Pressure")),
 			status: 400, kind: "invalid-request", pointers: []string{"/suction/Pressure"}, detail: `did you mean "pressure"?`},

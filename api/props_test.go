@@ -110,6 +110,8 @@ func successCases(t *testing.T) map[string]string {
 		"impeller loss share 0":     duty(t, demoDuty, set("options.impeller_loss_share", 0)),
 		"impeller loss share 1":     duty(t, demoDuty, set("options.impeller_loss_share", 1)),
 		"gauge suction, ambient":    duty(t, demoDuty, set("suction.pressure", "0 barg"), set("suction.ambient", "0.95 bar")),
+		"wiesner slip":              duty(t, demoDuty, del("impeller.slip_factor"), set("impeller.slip_correlation", "wiesner"), set("impeller.blade_count", 17)),
+		"stanitz slip":              duty(t, demoDuty, del("impeller.slip_factor"), set("impeller.slip_correlation", "stanitz"), set("impeller.blade_count", 17)),
 		"ideal mixture, mass basis": duty(t, demoDuty, set("gas", map[string]any{"model": "ideal", "composition": map[string]any{"N2": 0.755, "O2": 0.232, "Ar": 0.013}, "composition_basis": "mass"})),
 	}
 	files, err := filepath.Glob(filepath.Join(stagesDir, "*.in.json"))
@@ -177,7 +179,10 @@ func TestStageAnswerProperties(t *testing.T) {
 			}
 			assert.InEpsilon(t, pif*u2*ct2, work, tol, "work = power_input_factor × U2 × cθ2")
 			beta := imp["blade_exit_angle"].(float64) * math.Pi / 180
-			sigma := imp["slip_factor"].(float64)
+			sigma := a.num("coefficients.slip_factor")
+			if given, ok := imp["slip_factor"].(float64); ok {
+				assert.InDelta(t, given, sigma, 1e-12, "the given slip factor is used")
+			}
 			assert.InEpsilon(t, u2*(sigma-cr2/u2*math.Tan(beta)), ct2, tol, "cθ2 = U2 (σ − φ2 tan β2), the slip factor as the API defines it")
 			assert.InEpsilon(t, math.Hypot(cr2, ct2), a.num("velocities.exit_absolute"), tol, "c2² = cr2² + cθ2²")
 			assert.InEpsilon(t, math.Hypot(cr2, u2-ct2), a.num("velocities.exit_relative"), tol, "W2² = cr2² + (U2 − cθ2)²")
@@ -334,4 +339,18 @@ func TestUnitStringsMatchSI(t *testing.T) {
 			assertJSONClose(t, want, got)
 		})
 	}
+}
+
+// TestWiesnerSlipThroughTheAPI: slip_correlation "wiesner" gives
+// σ = 1 − √(cos β2) / Z^0.7 while the inlet radius ratio stays below
+// ε_lim = exp(−8.16 cos β2 / Z) (Wiesner, ASME J. Eng. Power 89 (1967)
+// 558-572, eq. for σ and ε_lim; from memory).
+func TestWiesnerSlipThroughTheAPI(t *testing.T) {
+	w := postStage(newRouter(t), duty(t, demoDuty, del("impeller.slip_factor"),
+		set("impeller.slip_correlation", "wiesner"), set("impeller.blade_count", 17)))
+	require.Equal(t, http.StatusOK, w.Code, "body: %s", w.Body.String())
+	a := decodeAnswer(t, w.Body.Bytes())
+	cosB := math.Cos(35 * math.Pi / 180)
+	require.Less(t, a.num("coefficients.inlet_diameter_ratio"), math.Exp(-8.16*cosB/17), "no inlet-radius correction applies")
+	assert.InEpsilon(t, 1-math.Sqrt(cosB)/math.Pow(17, 0.7), a.num("coefficients.slip_factor"), 1e-9)
 }
