@@ -69,3 +69,23 @@ func TestBatchShapeErrorsPointIntoTheDuty(t *testing.T) {
 	require.Equal(t, http.StatusBadRequest, rec.Code, "501 duties exceed the batch limit")
 	assert.Equal(t, "application/problem+json", rec.Header().Get("Content-Type"))
 }
+
+// TestEyeHubReportedForEveryAxialEye: an axial eye without a hub reports
+// eye_hub_diameter 0, a radial inlet leaves it out (schema of GeometryOut).
+func TestEyeHubReportedForEveryAxialEye(t *testing.T) {
+	h := newRouter(t)
+	var out struct {
+		Geometry map[string]any `json:"geometry"`
+	}
+	rec := postStage(h, duty(t, demoDuty, set("impeller.inlet.hub_ratio", 0)))
+	require.Equal(t, http.StatusOK, rec.Code, rec.Body.String())
+	require.NoError(t, json.Unmarshal(rec.Body.Bytes(), &out))
+	assert.Equal(t, 0.0, out.Geometry["eye_hub_diameter"])
+	radial := duty(t, demoDuty, del("impeller.inlet.hub_ratio"), set("impeller.inlet.type", "radial"), set("impeller.inlet.diameter_ratio", 0.45))
+	rec = postStage(h, radial)
+	require.Equal(t, http.StatusOK, rec.Code, rec.Body.String())
+	out.Geometry = nil
+	require.NoError(t, json.Unmarshal(rec.Body.Bytes(), &out))
+	_, has := out.Geometry["eye_hub_diameter"]
+	assert.False(t, has)
+}

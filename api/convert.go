@@ -7,6 +7,7 @@ import (
 
 	"stagewright/api/units"
 	"stagewright/physics"
+	"stagewright/physics/stage"
 	"stagewright/service"
 )
 
@@ -200,7 +201,7 @@ func responseOf(res service.StageResult) (StageResponse, error) {
 			d.st.WaterDewPoint = &v
 		}
 	}
-	if g.EyeHubDiameter > 0 {
+	if g.Inlet == stage.InletAxialEye {
 		h := float64(g.EyeHubDiameter)
 		out.Geometry.EyeHubDiameter = &h
 	}

@@ -40,7 +40,11 @@ func newValidator() *validator.Validate {
 func decodeStrict(r *http.Request, w http.ResponseWriter, dst any, v *validator.Validate) error {
 	body, err := io.ReadAll(http.MaxBytesReader(w, r.Body, maxBody))
 	if err != nil {
-		return fmt.Errorf("%w: body unreadable or larger than %d bytes", errBadBody, maxBody)
+		var mbe *http.MaxBytesError
+		if errors.As(err, &mbe) {
+			return errTooLarge
+		}
+		return fmt.Errorf("%w: body unreadable", errBadBody)
 	}
 	if len(bytes.TrimSpace(body)) == 0 {
 		return fmt.Errorf("%w: the request body is empty; send a JSON object", errBadBody)
@@ -118,6 +122,11 @@ func unknownFields(raw any, t reflect.Type, ptr string) fieldErrors {
 		t = t.Elem()
 	}
 	if t == quantityType {
+		if n, ok := raw.(json.Number); ok {
+			if _, err := strconv.ParseFloat(string(n), 64); err != nil {
+				return fieldErrors{{Pointer: ptr, Detail: fmt.Sprintf("%s = %s is not a finite number", orBody(ptr[min(1, len(ptr)):]), n)}}
+			}
+		}
 		if !quantityKind(raw) && raw != nil {
 			return fieldErrors{{Pointer: ptr, Detail: fmt.Sprintf("%s must be a number in SI units or a string with a unit, e.g. \"35 degC\"", orBody(ptr[min(1, len(ptr)):]))}}
 		}

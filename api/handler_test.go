@@ -35,7 +35,7 @@ func TestStageProblems(t *testing.T) {
 		{name: "blank body", body: " \n\t ", status: 400, kind: "malformed-body", detail: "empty"},
 		{name: "trailing data", body: demoDuty + ` {"speed": 1}`, status: 400, kind: "malformed-body", detail: "after the JSON object"},
 		{name: "trailing garbage", body: demoDuty + `x`, status: 400, kind: "malformed-body", detail: "after the JSON object"},
-		{name: "number overflowing float64 in a quantity", body: strings.Replace(demoDuty, `"speed": 24000`, `"speed": 1e999`, 1), status: 400, kind: "malformed-body", detail: "1e999"},
+		{name: "number overflowing float64 in a quantity", body: strings.Replace(demoDuty, `"speed": 24000`, `"speed": 1e999`, 1), status: 400, kind: "invalid-request", pointers: []string{"/speed"}, detail: "1e999"},
 
 		// The body is JSON of the wrong shape.
 		{name: "array body", body: `[]`, status: 400, kind: "invalid-request", pointers: []string{""}, detail: "must be a JSON object"},
@@ -187,12 +187,12 @@ func TestStageProblems(t *testing.T) {
 	}
 }
 
-// TestStageBodyTooLarge: a body above the 1 MiB bound is refused as a
-// client error (413 Content Too Large would be the precise status, RFC 9110 §15.5.14).
+// TestStageBodyTooLarge: a body above the 1 MiB bound is refused with
+// 413 Content Too Large (RFC 9110 §15.5.14).
 func TestStageBodyTooLarge(t *testing.T) {
 	h := newRouter(t)
 	w := postStage(h, `{"gas": "`+strings.Repeat("a", 2<<20)+`"}`)
-	require.Contains(t, []int{http.StatusBadRequest, http.StatusRequestEntityTooLarge}, w.Code)
+	require.Equal(t, http.StatusRequestEntityTooLarge, w.Code)
 	assert.Equal(t, "application/problem+json", w.Header().Get("Content-Type"))
 	var p problem
 	require.NoError(t, json.Unmarshal(w.Body.Bytes(), &p))
@@ -213,7 +213,7 @@ func TestRoutingProblems(t *testing.T) {
 		// RFC 9110 §15.5.6: a 405 carries Allow with the methods served.
 		{"GET on the sizing endpoint", http.MethodGet, "/v1/stage/size", 405, "method-not-allowed", "POST"},
 		{"PUT on the sizing endpoint", http.MethodPut, "/v1/stage/size", 405, "method-not-allowed", "POST"},
-		{"DELETE on healthz", http.MethodDelete, "/healthz", 405, "method-not-allowed", "GET"},
+		{"DELETE on healthz", http.MethodDelete, "/healthz", 405, "method-not-allowed", "GET, HEAD"},
 		{"POST on the OpenAPI document", http.MethodPost, "/openapi.json", 405, "method-not-allowed", "GET"},
 	}
 	for _, tc := range tests {

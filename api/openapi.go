@@ -30,6 +30,7 @@ func openAPI3(spec []byte) ([]byte, error) {
 			doubleNumbers(s.Value, map[*openapi3.Schema]bool{})
 		}
 	}
+	problemContent(doc3)
 	if err := doc3.Validate(context.Background()); err != nil {
 		return nil, fmt.Errorf("api: openapi 3 document invalid: %w", err)
 	}
@@ -109,6 +110,31 @@ func doubleNumbers(s *openapi3.Schema, seen map[*openapi3.Schema]bool) {
 	for _, o := range s.OneOf {
 		if o != nil {
 			doubleNumbers(o.Value, seen)
+		}
+	}
+}
+
+// problemContent documents error responses (4xx, 5xx) as
+// application/problem+json (RFC 9457 §3), which swag cannot express: its
+// @Produce applies to every response of an operation.
+func problemContent(doc *openapi3.T) {
+	if doc.Paths == nil {
+		return
+	}
+	for _, item := range doc.Paths.Map() {
+		for _, op := range item.Operations() {
+			if op.Responses == nil {
+				continue
+			}
+			for code, ref := range op.Responses.Map() {
+				if ref == nil || ref.Value == nil || len(code) != 3 || (code[0] != '4' && code[0] != '5') {
+					continue
+				}
+				if mt, ok := ref.Value.Content["application/json"]; ok {
+					delete(ref.Value.Content, "application/json")
+					ref.Value.Content["application/problem+json"] = mt
+				}
+			}
 		}
 	}
 }

@@ -47,6 +47,11 @@ func TestOpenAPI3Valid(t *testing.T) {
 		require.NotEmpty(t, resp.Value.Content, "response %s has no content", code)
 		for media, mt := range resp.Value.Content {
 			assert.Equal(t, "#/components/schemas/"+schema, mt.Schema.Ref, "response %s %s", code, media)
+			want := "application/json"
+			if code != "200" {
+				want = "application/problem+json" // RFC 9457 §3
+			}
+			assert.Equal(t, want, media, "response %s", code)
 		}
 	}
 	require.NotNil(t, doc.Paths.Find("/healthz"))

@@ -37,6 +37,9 @@ type FieldProblem struct {
 // errBadBody marks a body that is not JSON or not of the request's shape.
 var errBadBody = errors.New("api: malformed request body")
 
+// errTooLarge marks a body over maxBody.
+var errTooLarge = errors.New("api: request body too large")
+
 // fieldErrors is a list of shape errors found while decoding.
 type fieldErrors []FieldProblem
 
@@ -65,6 +68,9 @@ func problemFor(err error) Problem {
 			p.Errors = append(p.Errors, FieldProblem{Pointer: pointerFor(e), Detail: validationDetail(e)})
 		}
 		return p
+	case errors.Is(err, errTooLarge):
+		return Problem{Type: problemBase + "body-too-large", Title: "Request body too large", Status: http.StatusRequestEntityTooLarge,
+			Detail: fmt.Sprintf("the body exceeds %d bytes; split a batch into smaller ones", maxBody)}
 	case errors.Is(err, errBadBody):
 		return Problem{Type: problemBase + "malformed-body", Title: "Body is not valid JSON", Status: http.StatusBadRequest,
 			Detail: strings.TrimPrefix(strings.TrimPrefix(err.Error(), errBadBody.Error()+": "), "json: ")}
@@ -112,7 +118,7 @@ func pointerFor(fe validator.FieldError) string {
 
 // validationDetail is a sentence for one failed validator tag.
 func validationDetail(fe validator.FieldError) string {
-	name := strings.TrimPrefix(pointerFor(fe), "/")
+	name := strings.ReplaceAll(strings.TrimPrefix(pointerFor(fe), "/"), "/", ".")
 	switch fe.Tag() {
 	case "required":
 		return name + " is required"
@@ -128,6 +134,14 @@ func validationDetail(fe validator.FieldError) string {
 		return fmt.Sprintf("%s must be at most %s", name, fe.Param())
 	case "gt":
 		return fmt.Sprintf("%s must be greater than %s", name, fe.Param())
+	case "required_if":
+		field, value, _ := strings.Cut(fe.Param(), " ")
+		return fmt.Sprintf("%s is required when %s is %q", name, jsonName(field), value)
+	case "excluded_unless":
+		field, value, _ := strings.Cut(fe.Param(), " ")
+		return fmt.Sprintf("%s applies only when %s is %q; leave it out", name, jsonName(field), value)
+	case "len":
+		return fmt.Sprintf("%s must have exactly %s entries", name, fe.Param())
 	case "dive", "required_with":
 		return fmt.Sprintf("%s is incomplete (%s %s)", name, fe.Tag(), fe.Param())
 	}

@@ -36,6 +36,7 @@ func NewRouter(svc Services, log *slog.Logger, spec []byte) (*gin.Engine, error)
 			Detail: c.Request.Method + " is not served on " + c.Request.URL.Path})
 	})
 	r.GET("/healthz", health)
+	r.HEAD("/healthz", health)
 	r.GET("/openapi.json", func(c *gin.Context) { c.Data(http.StatusOK, "application/json", doc3) })
 	r.GET("/openapi/swagger.json", func(c *gin.Context) { c.Data(http.StatusOK, "application/json", spec) })
 	st := stageHandler{svc: svc, validate: newValidator(), log: log}

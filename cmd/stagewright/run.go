@@ -53,8 +53,12 @@ func loadConfig(args []string, getenv func(string) string, stderr io.Writer) (co
 	if fs.NArg() > 0 {
 		return cfg, fmt.Errorf("unexpected arguments: %s", strings.Join(fs.Args(), " "))
 	}
-	if _, _, err := net.SplitHostPort(*addr); err != nil {
+	_, port, err := net.SplitHostPort(*addr)
+	if err != nil {
 		return cfg, fmt.Errorf("listen address %q: %w", *addr, err)
+	}
+	if n, err := strconv.Atoi(port); err != nil || n < 0 || n > 65535 {
+		return cfg, fmt.Errorf("listen address %q: the port must be a number from 0 to 65535", *addr)
 	}
 	if err := cfg.LogLevel.UnmarshalText([]byte(*level)); err != nil {
 		return cfg, fmt.Errorf("log level %q: want debug, info, warn or error", *level)

@@ -42,6 +42,8 @@ func TestLoadConfig(t *testing.T) {
 		{name: "address without port from flag", args: []string{"--addr", "127.0.0.1"}, wantErr: "listen address"},
 		{name: "address without port from env", env: map[string]string{"STAGEWRIGHT_ADDR": "localhost"}, wantErr: "listen address"},
 		{name: "bad flag address wins over a good env address", args: []string{"--addr", "nonsense"}, env: map[string]string{"STAGEWRIGHT_ADDR": "127.0.0.1:9000"}, wantErr: "listen address"},
+		{name: "port out of range", args: []string{"--addr", "127.0.0.1:99999"}, wantErr: "port must be a number"},
+		{name: "port not a number", env: map[string]string{"STAGEWRIGHT_ADDR": "127.0.0.1:http"}, wantErr: "port must be a number"},
 		{name: "bad log level from flag", args: []string{"--log-level", "verbose"}, wantErr: "log level"},
 		{name: "bad log level from env", env: map[string]string{"STAGEWRIGHT_LOG_LEVEL": "loud"}, wantErr: "log level"},
 		{name: "bad demo switch from env", env: map[string]string{"STAGEWRIGHT_DEMO": "maybe"}, wantErr: "STAGEWRIGHT_DEMO"},

@@ -27,6 +27,11 @@ const (
 // speed.
 const MaxTipDiameter physics.Meter = 4.0
 
+// MinPassageWidth is the narrowest inlet or exit passage the sizing
+// covers (m): below about 1 mm impellers cannot be made or lose most of
+// their efficiency to friction and leakage (common practice, no source).
+const MinPassageWidth physics.Meter = 0.5e-3
+
 // DefaultImpellerLossShare is the fraction of the stage loss taken to arise
 // in the impeller when the exit static state is found: half, following
 // Saravanamuttoo et al., Gas Turbine Theory (2009), Example 4.1 (from
@@ -81,6 +86,8 @@ type Station struct {
 
 // Geometry is the sized flow path. Lengths in m.
 type Geometry struct {
+	// Inlet is the inlet kind the geometry was sized for.
+	Inlet       InletKind
 	TipDiameter physics.Meter
 	// InletDiameter is D1 (radial inlet) or the eye tip diameter D1t.
 	InletDiameter physics.Meter
@@ -181,7 +188,7 @@ func Size(d Duty, imp Impeller, in Inlet) (Sizing, error) {
 	}
 	if d2 > MaxTipDiameter {
 		return Sizing{}, &physics.DomainError{Name: "speed", Value: float64(d.Speed), Want: "a speed giving D2 <= 4 m",
-			Reason: fmt.Sprintf("the speed is too low for this head: at %.0f rev/min the impeller would need a tip diameter of %.2f m to reach the tip speed of %.0f m/s that the work requires; no single stage of at most %.0f m makes this head at this speed: raise the speed or split the head over more stages",
+			Reason: fmt.Sprintf("the speed is too low for this head: at %.4g rev/min the impeller would need a tip diameter of %.4g m to reach the tip speed of %.0f m/s that the work requires; no single stage of at most %.0f m makes this head at this speed: raise the speed or split the head over more stages",
 				float64(d.Speed), float64(d2), float64(u2), float64(MaxTipDiameter))}
 	}
 	var out Sizing
@@ -198,6 +205,11 @@ func Size(d Duty, imp Impeller, in Inlet) (Sizing, error) {
 		return Sizing{}, err
 	}
 
+	if b := math.Min(float64(out.Geometry.ExitWidth), float64(out.Geometry.InletWidth)); b < float64(MinPassageWidth) {
+		return Sizing{}, &physics.DomainError{Name: "flow", Value: b, Want: "passage widths of at least 0.5 mm",
+			Reason: fmt.Sprintf("the flow is too small for a centrifugal impeller at this speed: the narrowest passage would be %.3g mm wide, under the %.1f mm the sizing covers; lower the speed, raise the flow or choose another machine type",
+				b*1e3, float64(MinPassageWidth)*1e3)}
+	}
 	c := &out.Coefficients
 	area2 := math.Pi * float64(d2) * float64(d2) / 4
 	c.FlowCoefficient = out.SuctionFlow / (float64(u2) * area2)
@@ -250,6 +262,7 @@ func sizeInlet(d Duty, in Inlet, out *Sizing) error {
 	g := &out.Geometry
 	v := &out.Velocities
 	g.InletArea = a1
+	g.Inlet = in.Kind
 	d2 := g.TipDiameter
 	switch in.Kind {
 	case InletRadial:
@@ -271,7 +284,7 @@ func sizeInlet(d Duty, in Inlet, out *Sizing) error {
 		g.InletWidth = physics.Meter((dt - nu*dt) / 2)
 		if g.InletDiameter >= d2 {
 			return &physics.DomainError{Name: "speed", Value: float64(d.Speed), Want: "an eye smaller than the impeller",
-				Reason: fmt.Sprintf("the speed is too high for this flow: the eye needs a tip diameter of %.3f m, but at %.0f rev/min the impeller tip diameter is only %.3f m; lower the speed or raise the inlet meridional velocity",
+				Reason: fmt.Sprintf("the speed is too high for this flow: the eye needs a tip diameter of %.4g m, but at %.4g rev/min the impeller tip diameter is only %.4g m; lower the speed or raise the inlet meridional velocity",
 					float64(g.InletDiameter), float64(d.Speed), float64(d2))}
 		}
 		um := PeripheralSpeed(physics.Meter(math.Sqrt((dt*dt+nu*nu*dt*dt)/2)), d.Speed)

@@ -372,3 +372,16 @@ func BenchmarkSizeIdealConstant(b *testing.B) {
 		}
 	}
 }
+
+// TestSizeTooSmallFlow: a flow so small that the passages would be under
+// MinPassageWidth (0.5 mm, common practice) is outside the sizing.
+func TestSizeTooSmallFlow(t *testing.T) {
+	air := textbookAir(t)
+	s01 := suctionState(t, air, 300, 1e5)
+	d := stage.Duty{Model: air, Suction: s01, Work: 100e3, IsentropicEfficiency: 0.8,
+		ImpellerLossShare: 0.5, MassFlow: 1e-6, Speed: 20000}
+	imp := stage.Impeller{SlipFactor: 0.9, PowerInputFactor: 1, ExitMeridionalVelocity: 100}
+	_, err := stage.Size(d, imp, stage.Inlet{Kind: stage.InletAxialEye, HubRatio: 0.3, MeridionalVelocity: 120})
+	require.ErrorIs(t, err, physics.ErrDomain)
+	assert.Contains(t, err.Error(), "flow is too small")
+}
