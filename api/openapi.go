@@ -116,7 +116,7 @@ func doubleNumbers(s *openapi3.Schema, seen map[*openapi3.Schema]bool) {
 
 // problemContent documents error responses (4xx, 5xx) as
 // application/problem+json (RFC 9457 §3), which swag cannot express: its
-// @Produce applies to every response of an operation.
+// produce annotation applies to every response of an operation.
 func problemContent(doc *openapi3.T) {
 	if doc.Paths == nil {
 		return
