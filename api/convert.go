@@ -23,22 +23,35 @@ const (
 	dimVelocity
 )
 
-// si returns the SI value of q (nil when q is nil). field is the dotted
-// field name, for errors.
+// si returns the SI value of q (nil when q is nil), read as dimension dim.
+// field is the dotted field name, for errors.
 func si(q *Quantity, dim dimension, field string, ambient float64) (*float64, error) {
 	if q == nil {
 		return nil, nil
 	}
-	v := q.number
-	if q.isText {
-		var err error
-		v, err = parseUnit(dim, q.text, ambient)
-		if err != nil {
-			return nil, &service.InputError{Field: field, Shape: true, Err: err}
-		}
+	var v float64
+	var err error
+	switch dim {
+	case dimPressure:
+		v, err = q.Pressure(ambient)
+	case dimTemperature:
+		v, err = q.Temperature()
+	case dimMassFlow:
+		v, err = q.MassFlow()
+	case dimVolumeFlow:
+		v, err = q.VolumeFlow()
+	case dimSpeed:
+		v, err = q.Speed()
+	case dimVelocity:
+		v, err = q.Velocity()
+	default:
+		err = fmt.Errorf("no unit parser for dimension %d", dim)
 	}
-	if math.IsNaN(v) || math.IsInf(v, 0) {
-		return nil, &service.InputError{Field: field, Shape: true, Err: errors.New("the value is not a finite number")}
+	if err == nil && (math.IsNaN(v) || math.IsInf(v, 0)) {
+		err = errors.New("the value is not a finite number")
+	}
+	if err != nil {
+		return nil, &service.InputError{Field: field, Shape: true, Err: err}
 	}
 	return &v, nil
 }
@@ -129,20 +142,20 @@ func standardFlow(f FlowSpec) (*float64, string, error) {
 		}
 		return nil, "", nil
 	}
-	if !q.isText {
-		v := q.number
+	if !q.IsText() {
+		v := q.Value
 		if math.IsNaN(v) || math.IsInf(v, 0) {
 			return nil, "", &service.InputError{Field: "flow.standard_volume", Shape: true, Err: errors.New("the value is not a finite number")}
 		}
 		return &v, f.Reference, nil
 	}
-	sf, err := units.ParseStandardVolumeFlow(q.text)
+	sf, err := units.ParseStandardVolumeFlow(q.Text)
 	if err != nil {
 		return nil, "", &service.InputError{Field: "flow.standard_volume", Shape: true, Err: err}
 	}
 	if f.Reference != "" && f.Reference != sf.Reference {
 		return nil, "", &service.InputError{Field: "flow.reference", Shape: true,
-			Err: fmt.Errorf("flow.standard_volume %q is at %s conditions but flow.reference says %s", q.text, sf.Reference, f.Reference)}
+			Err: fmt.Errorf("flow.standard_volume %q is at %s conditions but flow.reference says %s", q.Text, sf.Reference, f.Reference)}
 	}
 	return &sf.Flow, sf.Reference, nil
 }

@@ -65,13 +65,9 @@ func decodeStrict(r *http.Request, w http.ResponseWriter, dst any, v *validator.
 	strict.DisallowUnknownFields()
 	if err := strict.Decode(dst); err != nil {
 		var ute *json.UnmarshalTypeError
-		var qe *quantityTypeError
-		switch {
-		case errors.As(err, &ute):
+		if errors.As(err, &ute) {
 			return fieldErrors{{Pointer: dottedPointer(ute.Field), Detail: fmt.Sprintf("%s must be a JSON %s, not %s",
 				orBody(ute.Field), jsonKind(ute.Type), ute.Value)}}
-		case errors.As(err, &qe):
-			return fmt.Errorf("%w: %w", errBadBody, err)
 		}
 		return fmt.Errorf("%w: %w", errBadBody, err)
 	}
@@ -122,13 +118,12 @@ func unknownFields(raw any, t reflect.Type, ptr string) fieldErrors {
 		t = t.Elem()
 	}
 	if t == quantityType {
-		if n, ok := raw.(json.Number); ok {
-			if _, err := strconv.ParseFloat(string(n), 64); err != nil {
-				return fieldErrors{{Pointer: ptr, Detail: fmt.Sprintf("%s = %s is not a finite number", orBody(ptr[min(1, len(ptr)):]), n)}}
+		if msg := quantityProblem(raw); msg != "" {
+			name := orBody(strings.ReplaceAll(strings.TrimPrefix(ptr, "/"), "/", "."))
+			if n, ok := raw.(json.Number); ok {
+				name += " = " + string(n)
 			}
-		}
-		if !quantityKind(raw) && raw != nil {
-			return fieldErrors{{Pointer: ptr, Detail: fmt.Sprintf("%s must be a number in SI units or a string with a unit, e.g. \"35 degC\"", orBody(ptr[min(1, len(ptr)):]))}}
+			return fieldErrors{{Pointer: ptr, Detail: name + " " + msg}}
 		}
 		return nil
 	}
