@@ -45,13 +45,7 @@ func (m *Mixture) DewTemperature(x []float64, p physics.Pascal) (physics.Kelvin,
 	}
 	n := m.n
 	var buf [4 * stackComponents]float64
-	var s []float64
-	if n <= stackComponents {
-		s = buf[:4*n]
-	} else {
-		s = make([]float64, 4*n)
-	}
-	d, lnw, w, phi := s[:n], s[n:2*n], s[2*n:3*n], s[3*n:4*n]
+	d, lnw, w, phi := m.scratch(&buf)
 
 	// Wilson estimate: Σ xi/Ki(T) = 1, decreasing in T; bisection on 1/T.
 	tMin := math.Inf(1)

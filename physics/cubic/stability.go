@@ -56,15 +56,8 @@ func (m *Mixture) Stable(x []float64, t physics.Kelvin, p physics.Pascal) (bool,
 	if err := m.checkX(x); err != nil {
 		return false, err
 	}
-	n := m.n
 	var buf [4 * stackComponents]float64
-	var s []float64
-	if n <= stackComponents {
-		s = buf[:4*n]
-	} else {
-		s = make([]float64, 4*n)
-	}
-	d, lnw, w, phi := s[:n], s[n:2*n], s[2*n:3*n], s[3*n:4*n]
+	d, lnw, w, phi := m.scratch(&buf)
 	zf, _, _ := m.lnPhi(x, tt, pp, pickLargest, phi)
 	for i, xi := range x {
 		if xi > 0 {
@@ -156,4 +149,18 @@ func (m *Mixture) trialPhase(x []float64, t, p, zf float64, d, lnw, w, phi []flo
 // pure component's liquid against its vapour) is not trivial.
 func isTrivial(dist, zt, zf float64) bool {
 	return dist < tpdTrivial && math.Abs(zt-zf) < 1e-3*zf
+}
+
+// scratch splits four work vectors of length n out of buf, or out of a new
+// slice when the mixture has more than stackComponents components (so the
+// common case allocates nothing).
+func (m *Mixture) scratch(buf *[4 * stackComponents]float64) (d, lnw, w, phi []float64) {
+	n := m.n
+	var s []float64
+	if n <= stackComponents {
+		s = buf[:4*n]
+	} else {
+		s = make([]float64, 4*n)
+	}
+	return s[:n], s[n : 2*n], s[2*n : 3*n], s[3*n : 4*n]
 }
