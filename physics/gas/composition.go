@@ -58,41 +58,26 @@ func NewComposition(fractions []Fraction, basis Basis) (Composition, error) {
 		return Composition{}, &physics.DomainError{Name: "composition", Want: "at least one component",
 			Reason: "the composition is empty: give at least one component with its fraction"}
 	}
-	cat := Components()
 	comps := make([]Component, 0, len(fractions))
 	x := make([]float64, 0, len(fractions))
 	sum := 0.0
 	for i, f := range fractions {
 		field := "composition[" + strconv.Itoa(i) + "]"
-		key := normName(f.Name)
-		idx := -1
-		for j := range cat {
-			if normName(cat[j].ID) == key {
-				idx = j
-			}
-			for _, n := range cat[j].Names {
-				if normName(n) == key {
-					idx = j
-				}
-			}
-			if idx >= 0 {
-				break
-			}
-		}
-		if key == "" || idx < 0 {
-			return Composition{}, unknownComponent(f.Name)
+		c, err := LookupComponent(f.Name)
+		if err != nil {
+			return Composition{}, err
 		}
 		if !(f.Value >= 0) || math.IsInf(f.Value, 0) {
 			return Composition{}, &physics.DomainError{Name: field + ".fraction", Value: f.Value, Want: "finite, >= 0",
 				Reason: "the fraction of " + f.Name + " must be a finite number of at least 0"}
 		}
-		for _, c := range comps {
-			if c.ID == cat[idx].ID {
+		for _, seen := range comps {
+			if seen.ID == c.ID {
 				return Composition{}, &physics.DomainError{Name: field + ".name", Want: "each component once",
-					Reason: "component " + cat[idx].ID + " is given more than once (\"" + f.Name + "\")"}
+					Reason: "component " + c.ID + " is given more than once (\"" + f.Name + "\")"}
 			}
 		}
-		comps = append(comps, cat[idx])
+		comps = append(comps, c)
 		x = append(x, f.Value)
 		sum += f.Value
 	}
