@@ -105,24 +105,43 @@ func fractionsOf(g GasInput) ([]gas.Fraction, error) {
 	}
 	sort.Strings(names) // deterministic order, hence deterministic results
 	fr := make([]gas.Fraction, 0, len(names))
+	given := map[string]string{} // catalogue id -> name as given, for components named directly
+	expanded := map[string]int{} // catalogue id -> index in fr, for parts of named mixtures
 	for _, n := range names {
 		v := g.Composition[n]
 		if !(v >= 0 && v <= 1) {
 			return nil, shapeErr("gas.composition."+n, fmt.Errorf("the fraction of %s must lie in [0, 1], not %g", n, v))
 		}
-		if _, err := gas.LookupComponent(n); err != nil {
-			// A named mixture (e.g. "dry-air") expands into its components.
-			mix, merr := gas.NamedMixture(n)
-			if merr != nil {
-				return nil, shapeErr("gas.composition."+n, err)
-			}
+		// A named mixture (e.g. "dry-air") expands into its components; it
+		// is looked for first, since the air pseudo-component also answers
+		// to "dry air". Its parts merge with components given directly.
+		if mix, err := gas.NamedMixture(n); err == nil {
 			x := mix.MoleFractions()
 			for i := range mix.Len() {
-				fr = append(fr, gas.Fraction{Name: mix.Component(i).ID, Value: v * x[i]})
+				id := mix.Component(i).ID
+				if k, ok := expanded[id]; ok {
+					fr[k].Value += v * x[i]
+					continue
+				}
+				expanded[id] = len(fr)
+				fr = append(fr, gas.Fraction{Name: id, Value: v * x[i]})
 			}
 			continue
 		}
-		fr = append(fr, gas.Fraction{Name: n, Value: v})
+		c, err := gas.LookupComponent(n)
+		if err != nil {
+			return nil, shapeErr("gas.composition."+n, err)
+		}
+		if other, dup := given[c.ID]; dup {
+			return nil, shapeErr("gas.composition."+n, fmt.Errorf("%s and %s name the same component (%s): give it once", other, n, c.ID))
+		}
+		given[c.ID] = n
+		if k, ok := expanded[c.ID]; ok {
+			fr[k].Value += v
+			continue
+		}
+		expanded[c.ID] = len(fr)
+		fr = append(fr, gas.Fraction{Name: c.ID, Value: v})
 	}
 	return fr, nil
 }
