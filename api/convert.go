@@ -203,6 +203,14 @@ func responseOf(res service.StageResult) (StageResponse, error) {
 		Warnings: []WarningOut{},
 		Cautions: res.Cautions,
 	}
+	pos := func(v float64) *float64 {
+		if v > 0 {
+			return &v
+		}
+		return nil
+	}
+	out.StandardVolumeFlow = StandardFlowsOut{Normal: pos(res.StandardFlows.Normal), Standard: pos(res.StandardFlows.Standard),
+		USStandard: pos(res.StandardFlows.USStandard)}
 	dews := []struct {
 		st *StateOut
 		v  float64

@@ -7,6 +7,8 @@ type StageResponse struct {
 	MassFlow float64 `json:"mass_flow" format:"double" example:"3.2"`
 	// SuctionVolumeFlow is the actual volume flow at suction stagnation conditions, m3/s.
 	SuctionVolumeFlow float64 `json:"suction_volume_flow" format:"double" example:"2.7"`
+	// StandardVolumeFlow is the flow at reference conditions, m3/s.
+	StandardVolumeFlow StandardFlowsOut `json:"standard_volume_flow"`
 	// Speed is the rotational speed, rev/min.
 	Speed     float64      `json:"speed" format:"double" example:"21000"`
 	Discharge DischargeOut `json:"discharge"`
@@ -29,6 +31,17 @@ type StageResponse struct {
 	Provenance ProvenanceOut `json:"provenance"`
 	// Cautions says what the numbers are and defers to the manufacturer, the standards and licensed engineering practice.
 	Cautions string `json:"cautions"`
+}
+
+// StandardFlowsOut is the flow as standard volume, m3/s, at each reference
+// condition (absent where the gas would not be a gas there).
+type StandardFlowsOut struct {
+	// Normal is at 0 degC and 101.325 kPa (DIN 1343), m3/s.
+	Normal *float64 `json:"normal,omitempty" format:"double"`
+	// Standard is at 15 degC and 101.325 kPa (ISO 13443), m3/s.
+	Standard *float64 `json:"standard,omitempty" format:"double"`
+	// USStandard is at 60 degF and 14.696 psia, m3/s.
+	USStandard *float64 `json:"us_standard,omitempty" format:"double"`
 }
 
 // DischargeOut is the discharge total state.

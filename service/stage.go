@@ -160,6 +160,24 @@ type Power struct {
 	DriverMargin float64
 }
 
+// StandardFlows are volume flows at reference conditions, m3/s.
+type StandardFlows struct {
+	Normal, Standard, USStandard float64
+}
+
+// standardFlows converts mdot to standard volumes with the model's density
+// at each reference condition (real-gas Z there for a real model).
+func standardFlows(m gas.Model, mdot float64) StandardFlows {
+	at := func(ref flowbasis.Reference) float64 {
+		q, err := flowbasis.StandardVolumeFlow(physics.KgPerS(mdot), m, ref)
+		if err != nil {
+			return 0
+		}
+		return float64(q)
+	}
+	return StandardFlows{Normal: at(flowbasis.Normal()), Standard: at(flowbasis.Standard()), USStandard: at(flowbasis.USStandard())}
+}
+
 // WaterDewPoints are the water dew points at the stations, K (0: no water
 // in the gas, or a frost point below the triple point).
 type WaterDewPoints struct {
@@ -169,6 +187,10 @@ type WaterDewPoints struct {
 // StageResult is a sized stage.
 type StageResult struct {
 	WaterDewPoints WaterDewPoints
+	// StandardFlows is the flow as standard volume at each reference
+	// condition, m3/s (0 where the gas model has no gas state there, e.g. a
+	// condensable gas at 0 degC).
+	StandardFlows StandardFlows
 	// SlipFactor used: given, or from the correlation.
 	SlipFactor        float64
 	MassFlow          float64
@@ -291,6 +313,7 @@ func (s *Service) SizeStage(ctx context.Context, d StageDuty) (StageResult, erro
 
 	res.MassFlow = mdot
 	res.SuctionVolumeFlow = sz.SuctionFlow
+	res.StandardFlows = standardFlows(model, mdot)
 	res.Speed = d.Speed
 	res.Power, err = power(d, mdot, float64(comp.Work), prov)
 	if err != nil {
