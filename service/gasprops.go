@@ -78,7 +78,7 @@ func (s *Service) GasProperties(ctx context.Context, g GasInput, t, p float64) (
 				}
 			}
 		}
-		if w, ok := cubicAccuracy(m, comp, true, station{"state", st}); ok {
+		if w, ok := cubicAccuracy(m, comp, true, station{"state", st, false}); ok {
 			res.Notes = append(res.Notes, w.Message)
 		}
 	}

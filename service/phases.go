@@ -10,8 +10,9 @@ import (
 
 // station is a named state along the stage.
 type station struct {
-	name string
-	st   gas.State
+	name   string
+	st     gas.State
+	static bool // a static state of a moving stream, not a stagnation state
 }
 
 // checkPhases looks at each station (and returns its water dew point in K,
@@ -50,8 +51,12 @@ func checkPhases(m gas.Model, stations []station) ([]Warning, []float64) {
 				dew[k] = float64(c.DewPoint)
 				margin := float64(c.Margin)
 				if c.Condenses || margin < 5 {
+					// Below the dew point at a stagnation station the gas is wet
+					// (critical); at a static station (the eye, the impeller
+					// tip) the dip lasts a moment and the gas reheats, so a
+					// mist may form but is a caution (common practice, no source).
 					sev := "caution"
-					if c.Condenses {
+					if c.Condenses && !s.static {
 						sev = "critical"
 					}
 					out = append(out, Warning{Measured: true, Code: "water-dew-point", Severity: sev,

@@ -322,10 +322,10 @@ func (s *Service) SizeStage(ctx context.Context, d StageDuty) (StageResult, erro
 	prov.Methods = append(prov.Methods, Method{Subject: "driver rating", Name: "shaft power × 1.10", Source: limits.DriverMarginSource})
 
 	phaseWarnings, dew := checkPhases(model, []station{
-		{"suction", suction},
-		{"impeller inlet (static)", sz.Inlet.Static},
-		{"impeller exit (static)", sz.Exit.Static},
-		{"discharge", comp.Discharge},
+		{"suction", suction, false},
+		{"impeller inlet (static)", sz.Inlet.Static, true},
+		{"impeller exit (static)", sz.Exit.Static, true},
+		{"discharge", comp.Discharge, false},
 	})
 	res.Warnings = append(res.Warnings, phaseWarnings...)
 	res.WaterDewPoints = WaterDewPoints{Suction: dew[0], Inlet: dew[1], ImpellerExit: dew[2], Discharge: dew[3]}
