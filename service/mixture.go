@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"sort"
+	"strings"
 
 	"stagewright/physics"
 	"stagewright/physics/gas"
@@ -43,8 +44,13 @@ func (s *Service) mixtureModel(g GasInput, t, p float64, notes *gasNotes) (gas.M
 	m, err := gas.NewModel(g.Model, comp, kij)
 	if err != nil {
 		var de *physics.DomainError
-		if errors.As(err, &de) && de.Name == "kij" && len(kij) > 0 {
-			return nil, *notes, fieldErr("gas.binary_interaction", err)
+		if errors.As(err, &de) && strings.HasPrefix(de.Name, "kij") && len(kij) > 0 {
+			// "kij[2]" names the third override.
+			field := "gas.binary_interaction"
+			if i := strings.IndexByte(de.Name, '['); i >= 0 {
+				field += "." + strings.TrimSuffix(de.Name[i+1:], "]")
+			}
+			return nil, *notes, fieldErr(field, err)
 		}
 		return nil, *notes, fieldErr("gas.composition", err)
 	}
