@@ -55,6 +55,10 @@ type Impeller struct {
 	SlipFactor             float64 // σ = 1 − Δcθ/U2
 	PowerInputFactor       float64 // ψ ≥ 1
 	ExitMeridionalVelocity physics.MeterPerS
+	// ExitBlockage is the fraction B of the geometric exit area π D2 b2
+	// taken up by blade thickness and boundary layers, 0 ≤ B < 0.5; the
+	// exit width is b2 = ṁ / (ρ2 cr2 π D2 (1 − B)). 0 means no blockage.
+	ExitBlockage float64
 }
 
 // Duty is what the stage must do, with the compression path already solved.
@@ -97,8 +101,10 @@ type Geometry struct {
 	// EyeHubDiameter is Dh for an axial eye, 0 otherwise.
 	EyeHubDiameter physics.Meter
 	ExitWidth      physics.Meter
-	InletArea      float64 // m2
-	ExitArea       float64 // m2
+	InletArea      float64 // m2, the eye annulus or π D1 b1
+	// ExitArea is the geometric exit area π D2 b2, m2; the area open to
+	// the flow is (1 − ExitBlockage) times it.
+	ExitArea float64
 }
 
 // Velocities are the velocity triangles, m/s and deg.
@@ -135,6 +141,11 @@ type Coefficients struct {
 	PolytropicHeadCoefficient float64
 	// SpecificSpeed Ns = Ω √Q01 / Δh_s^0.75 (Ω in rad/s).
 	SpecificSpeed float64
+	// SpecificDiameter Ds = D2 Δh_s^0.25 / √Q01, dimensionless in SI units
+	// (O. E. Balje, Turbomachines: A Guide to Design, Selection and Theory
+	// (1981), the Ns-Ds diagram; from memory). 0 when no isentropic head
+	// is given.
+	SpecificDiameter float64
 	// ExitWidthRatio is b2/D2.
 	ExitWidthRatio float64
 	// InletTipRatio is D1/D2 (or D1t/D2).
@@ -162,7 +173,10 @@ type Sizing struct {
 //  3. Impeller exit: h02 = h01 + w; the impeller has isentropic efficiency
 //     η_imp = 1 − share (1 − η_stage), so p02 is the pressure at
 //     (h01 + η_imp w, s01); the static state is h2 = h02 − c2²/2 at s(p02,
-//     h02), c2² = cr2² + cθ2²; b2 = ṁ/(ρ2 cr2 π D2) (no blade blockage).
+//     h02), c2² = cr2² + cθ2²; b2 = ṁ/(ρ2 cr2 π D2 (1 − B)) with the exit
+//     blockage B (continuity with a blockage factor: Aungier, Centrifugal
+//     Compressors: A Strategy for Aerodynamic Design and Analysis (2000),
+//     ch. 5, and Dixon & Hall (2014), §7.4; both from memory).
 //
 // Sources: continuity and velocity triangles, Saravanamuttoo et al., Gas
 // Turbine Theory, 6th ed. (2009), §4.2-4.3 (the inlet static-density
@@ -177,6 +191,10 @@ func Size(d Duty, imp Impeller, in Inlet) (Sizing, error) {
 	u2, err := TipSpeed(d.Work, imp.SlipFactor, imp.PowerInputFactor, imp.BladeExitAngle, imp.ExitMeridionalVelocity)
 	if err != nil {
 		return Sizing{}, err
+	}
+	if !(imp.ExitBlockage >= 0 && imp.ExitBlockage < 0.5) {
+		return Sizing{}, &physics.DomainError{Name: "exit_blockage", Value: imp.ExitBlockage, Want: "0 <= exit_blockage < 0.5",
+			Reason: "the exit blockage is the blocked fraction of the impeller exit area: it must lie in [0, 0.5)"}
 	}
 	if !(imp.ExitMeridionalVelocity > 0) {
 		return Sizing{}, &physics.DomainError{Name: "exit_meridional_velocity", Value: float64(imp.ExitMeridionalVelocity),
@@ -218,6 +236,7 @@ func Size(d Duty, imp Impeller, in Inlet) (Sizing, error) {
 	if d.IsentropicHead > 0 {
 		omega := float64(d.Speed) * 2 * math.Pi / 60
 		c.SpecificSpeed = omega * math.Sqrt(out.SuctionFlow) / math.Pow(float64(d.IsentropicHead), 0.75)
+		c.SpecificDiameter = float64(d2) * math.Pow(float64(d.IsentropicHead), 0.25) / math.Sqrt(out.SuctionFlow)
 	}
 	c.ExitWidthRatio = float64(out.Geometry.ExitWidth) / float64(d2)
 	c.InletTipRatio = float64(out.Geometry.InletDiameter) / float64(d2)
@@ -333,7 +352,7 @@ func sizeExit(d Duty, imp Impeller, out *Sizing) error {
 			Reason: fmt.Sprintf("the impeller exit velocity of %.0f m/s is so high that the static temperature at the impeller exit falls outside the gas model: lower the exit meridional velocity or the work per stage", c2)}
 	}
 	d2 := out.Geometry.TipDiameter
-	a2 := float64(d.MassFlow) / (float64(st.Density) * float64(cr2))
+	a2 := float64(d.MassFlow) / (float64(st.Density) * float64(cr2)) / (1 - imp.ExitBlockage)
 	out.Geometry.ExitArea = a2
 	out.Geometry.ExitWidth = physics.Meter(a2 / (math.Pi * float64(d2)))
 	w2 := math.Hypot(float64(cr2), float64(u2)-float64(ct2))
@@ -360,7 +379,7 @@ func sizingFinite(s Sizing) bool {
 		v.InletBladeAngleShroud, v.InletBladeAngleMean, v.InletBladeAngleHub, float64(v.ExitWhirl), float64(v.ExitAbsolute),
 		float64(v.ExitRelative), v.ExitAbsoluteMach, v.ExitFlowAngle, v.RelativeVelocityRatio, v.MachineMach,
 		float64(v.ExitStagnationPressure), c.FlowCoefficient, c.WorkCoefficient, c.PolytropicHeadCoefficient,
-		c.SpecificSpeed, c.ExitWidthRatio, c.InletTipRatio, s.SuctionFlow,
+		c.SpecificSpeed, c.SpecificDiameter, c.ExitWidthRatio, c.InletTipRatio, s.SuctionFlow,
 		float64(s.Inlet.Static.Temperature), float64(s.Inlet.Static.Pressure), float64(s.Inlet.Static.Density),
 		float64(s.Exit.Static.Temperature), float64(s.Exit.Static.Pressure), float64(s.Exit.Static.Density))
 }

@@ -385,3 +385,62 @@ func TestSizeTooSmallFlow(t *testing.T) {
 	require.ErrorIs(t, err, physics.ErrDomain)
 	assert.Contains(t, err.Error(), "flow is too small")
 }
+
+// saravanamuttooDuty is stage-examples.md §2 (Saravanamuttoo et al., Gas
+// Turbine Theory, Example 4.1; inputs from memory).
+func saravanamuttooDuty(t *testing.T) (stage.Duty, stage.Impeller, stage.Inlet) {
+	t.Helper()
+	air := textbookAir(t)
+	s01 := suctionState(t, air, 295, 1.1e5)
+	w := physics.JoulePerKg(1005 * 193.26) // dT0 computed in the pack
+	d := stage.Duty{Model: air, Suction: s01, Work: w, IsentropicEfficiency: 0.78,
+		IsentropicHead: physics.JoulePerKg(0.78 * float64(w)),
+		ImpellerLossShare: stage.DefaultImpellerLossShare, MassFlow: 9, Speed: 17400}
+	imp := stage.Impeller{SlipFactor: 0.9, PowerInputFactor: 1.04, ExitMeridionalVelocity: 142.6}
+	in := stage.Inlet{Kind: stage.InletAxialEye, HubRatio: 0.5, MeridionalVelocity: 142.6}
+	return d, imp, in
+}
+
+// TestSizeExitBlockage: b2 = ṁ/(ρ2 cr2 π D2 (1 − B)) (continuity with a
+// blockage factor; Aungier (2000) / Dixon & Hall (2014), from memory).
+// B = 0 is the unblocked width of stage-examples.md §2 (1.75 cm computed
+// there); B = 0.1 is that width over 0.9, the exit state being unchanged.
+func TestSizeExitBlockage(t *testing.T) {
+	d, imp, in := saravanamuttooDuty(t)
+	clean, err := stage.Size(d, imp, in)
+	require.NoError(t, err)
+	assert.InEpsilon(t, 0.0175, float64(clean.Geometry.ExitWidth), 5e-3) // §2, computed there
+	imp.ExitBlockage = 0.1
+	blocked, err := stage.Size(d, imp, in)
+	require.NoError(t, err)
+	assert.InEpsilon(t, float64(clean.Geometry.ExitWidth)/0.9, float64(blocked.Geometry.ExitWidth), 1e-12)
+	assert.InEpsilon(t, float64(clean.Exit.Static.Density), float64(blocked.Exit.Static.Density), 1e-12)
+	assert.InEpsilon(t, math.Pi*float64(blocked.Geometry.TipDiameter)*float64(blocked.Geometry.ExitWidth), blocked.Geometry.ExitArea, 1e-12)
+	for _, b := range []float64{-0.01, 0.5, 1, math.NaN(), math.Inf(1)} {
+		imp.ExitBlockage = b
+		_, err := stage.Size(d, imp, in)
+		require.ErrorIs(t, err, physics.ErrDomain, "B = %v", b)
+		var de *physics.DomainError
+		require.ErrorAs(t, err, &de)
+		assert.Equal(t, "exit_blockage", de.Name)
+	}
+}
+
+// TestSpecificDiameter: Ds = D2 Δh_s^0.25/√Q01 (Balje 1981, from memory).
+// By the definitions Ns·Ds = Ω D2/√Δh_s = 2 U2/√Δh_s; and for §2 with
+// Δh_s = 0.78 × 1005 × 193.26 = 151 497 J/kg, Q01 = 9/ρ01 (ρ01 =
+// 1.1e5/(287.14 × 295) = 1.2986 kg/m3),
+// D2 = 0.5 m: Ds = 0.5 × 151 497^0.25 / √(9/1.2986) = 3.747 (computed here
+// with python3).
+func TestSpecificDiameter(t *testing.T) {
+	d, imp, in := saravanamuttooDuty(t)
+	got, err := stage.Size(d, imp, in)
+	require.NoError(t, err)
+	c := got.Coefficients
+	assert.InEpsilon(t, 2*float64(got.Velocities.TipSpeed)/math.Sqrt(float64(d.IsentropicHead)), c.SpecificSpeed*c.SpecificDiameter, 1e-12)
+	assert.InEpsilon(t, 3.747, c.SpecificDiameter, 1e-3)
+	d.IsentropicHead = 0
+	got, err = stage.Size(d, imp, in)
+	require.NoError(t, err)
+	assert.Zero(t, got.Coefficients.SpecificDiameter)
+}
