@@ -394,7 +394,7 @@ func saravanamuttooDuty(t *testing.T) (stage.Duty, stage.Impeller, stage.Inlet) 
 	s01 := suctionState(t, air, 295, 1.1e5)
 	w := physics.JoulePerKg(1005 * 193.26) // dT0 computed in the pack
 	d := stage.Duty{Model: air, Suction: s01, Work: w, IsentropicEfficiency: 0.78,
-		IsentropicHead: physics.JoulePerKg(0.78 * float64(w)),
+		IsentropicHead:    physics.JoulePerKg(0.78 * float64(w)),
 		ImpellerLossShare: stage.DefaultImpellerLossShare, MassFlow: 9, Speed: 17400}
 	imp := stage.Impeller{SlipFactor: 0.9, PowerInputFactor: 1.04, ExitMeridionalVelocity: 142.6}
 	in := stage.Inlet{Kind: stage.InletAxialEye, HubRatio: 0.5, MeridionalVelocity: 142.6}
