@@ -2,6 +2,7 @@ package stage_test
 
 import (
 	"fmt"
+	"math"
 
 	"stagewright/physics/stage"
 )
@@ -38,4 +39,17 @@ func ExampleWiesnerSlip() {
 	}
 	fmt.Printf("Wiesner %.4f, Stodola %.4f\n", w, s)
 	// Output: Wiesner 0.8727, Stodola 0.8347
+}
+
+// Peak polytropic efficiency at the optimum flow coefficient of Casey &
+// Robinson (2013) (φ_CR = 0.08, i.e. φ = 0.1019 here) and tip Mach 1.2
+// (correlation coefficients from memory).
+func ExamplePolytropicEfficiencyEstimate() {
+	e, err := stage.PolytropicEfficiencyEstimate(0.08*4/math.Pi, 1.2)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Printf("eta_p = %.4f, in range %v\n", e.Value, e.InRange)
+	// Output: eta_p = 0.8553, in range true
 }
