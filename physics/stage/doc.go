@@ -11,7 +11,12 @@
 //
 //	cθ2 = U2 (σ − φ2 tan β2'),  φ2 = cr2/U2.
 //
-// Inflow has no pre-whirl (cθ1 = 0). References: Dixon & Hall, Fluid
+// An axial eye may have inlet guide-vane prewhirl α1 (deg from axial,
+// positive with the rotation, constant across the span), which enters the
+// Euler work as −U1 cθ1 at the rms eye diameter; a radial inlet has none.
+// The eye tip diameter may be given, follow from a given meridional
+// velocity, or be chosen for the least shroud relative Mach number.
+// References: Dixon & Hall, Fluid
 // Mechanics and Thermodynamics of Turbomachinery, 7th ed. (2014), ch. 7;
 // Saravanamuttoo et al., Gas Turbine Theory, 6th ed. (2009), ch. 4.
 package stage

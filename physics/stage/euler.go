@@ -1,6 +1,7 @@
 package stage
 
 import (
+	"fmt"
 	"math"
 
 	"stagewright/physics"
@@ -37,6 +38,53 @@ func TipSpeed(w physics.JoulePerKg, slip, powerInput, bladeExitAngle float64, cr
 		return 0, &physics.DomainError{Name: "work", Value: float64(w), Want: "a finite tip speed"}
 	}
 	return physics.MeterPerS(u2), nil
+}
+
+// TipSpeedWithPrewhirl returns the tip speed U2 at which the Euler work
+// with inlet whirl cθ1 at blade speed u1 equals the actual work w:
+//
+//	w = ψ (U2 cθ2 − U1 cθ1),  i.e. TipSpeed with w' = w + ψ U1 cθ1
+//
+// (Euler turbomachinery equation, Dixon & Hall 2014, eq. 7.1, with the
+// power input factor on the whole Euler work as in TipSpeed). For an axial
+// eye U1 is taken at the rms eye diameter √((D1t² + Dh²)/2). Prewhirl with
+// the rotation (cθ1 > 0) lowers the work at a given U2, so U2 rises.
+// Valid for the ranges of TipSpeed, finite u1 ≥ 0 and finite cθ1 with
+// w + ψ U1 cθ1 > 0.
+func TipSpeedWithPrewhirl(w physics.JoulePerKg, slip, powerInput, bladeExitAngle float64, cr2, u1, ct1 physics.MeterPerS) (physics.MeterPerS, error) {
+	if err := checkImpeller(slip, powerInput, bladeExitAngle); err != nil {
+		return 0, err
+	}
+	switch {
+	case !(w > 0) || math.IsInf(float64(w), 0):
+		return 0, &physics.DomainError{Name: "work", Value: float64(w), Want: "finite, > 0 J/kg",
+			Reason: "the stage must do positive work on the gas"}
+	case !(u1 >= 0) || math.IsInf(float64(u1), 0):
+		return 0, &physics.DomainError{Name: "inlet_blade_speed", Value: float64(u1), Want: "finite, >= 0 m/s"}
+	case !physics.Finite(float64(ct1)):
+		return 0, &physics.DomainError{Name: "inlet_whirl", Value: float64(ct1), Want: "finite m/s"}
+	}
+	we := float64(w) + powerInput*float64(u1)*float64(ct1)
+	if !(we > 0) {
+		return 0, &physics.DomainError{Name: "inlet_whirl", Value: float64(ct1), Want: "w + ψ U1 cθ1 > 0",
+			Reason: fmt.Sprintf("the inlet prewhirl (%.4g m/s at a blade speed of %.4g m/s) takes out more Euler work than the stage is to do: use less prewhirl", float64(ct1), float64(u1))}
+	}
+	return TipSpeed(physics.JoulePerKg(we), slip, powerInput, bladeExitAngle, cr2)
+}
+
+// EulerWorkWithPrewhirl returns the actual specific work
+// ψ (U2 cθ2 − U1 cθ1) of an impeller at tip speed u2 whose inflow has whirl
+// ct1 at blade speed u1 (the inverse of TipSpeedWithPrewhirl; source as
+// there). Valid for the ranges of EulerWork and finite u1, ct1.
+func EulerWorkWithPrewhirl(u2 physics.MeterPerS, slip, powerInput, bladeExitAngle float64, cr2, u1, ct1 physics.MeterPerS) (physics.JoulePerKg, error) {
+	w, err := EulerWork(u2, slip, powerInput, bladeExitAngle, cr2)
+	if err != nil {
+		return 0, err
+	}
+	if !physics.Finite(float64(u1), float64(ct1)) || !(u1 >= 0) {
+		return 0, &physics.DomainError{Name: "inlet_whirl", Value: float64(ct1), Want: "finite cθ1 and U1 >= 0"}
+	}
+	return w - physics.JoulePerKg(powerInput*float64(u1)*float64(ct1)), nil
 }
 
 // EulerWork returns the actual specific work ψ U2 cθ2 of an impeller at tip

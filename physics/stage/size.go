@@ -43,10 +43,26 @@ type Inlet struct {
 	Kind InletKind
 	// DiameterRatio is D1/D2 for a radial inlet, 0 < ratio < 1.
 	DiameterRatio float64
-	// HubRatio is Dh/D1t for an axial eye, 0 ≤ ν < 1.
+	// HubRatio is Dh/D1t for an axial eye, 0 ≤ ν < 0.95.
 	HubRatio float64
-	// MeridionalVelocity is cm1 entering the blades, m/s (no pre-whirl).
+	// MeridionalVelocity is cm1 entering the blades, m/s. Radial inlet:
+	// required, > 0. Axial eye: when > 0 and no EyeTipDiameter is given the
+	// eye follows from continuity at this velocity; 0 leaves it to the eye
+	// choice (see EyeTipDiameter).
 	MeridionalVelocity physics.MeterPerS
+	// EyeTipDiameter is a given eye tip diameter D1t of an axial eye, m
+	// (0: not given). It takes precedence over MeridionalVelocity: cm1
+	// then follows from continuity at the static inlet density (subsonic
+	// root). When both are 0 the eye is chosen for the least shroud
+	// relative Mach number (EyeMinShroudMach). Ignored for a radial inlet.
+	EyeTipDiameter physics.Meter
+	// PrewhirlAngle is the absolute flow angle α1 set by inlet guide vanes
+	// at an axial eye, deg from the axial (meridional) direction, positive
+	// in the direction of rotation, MinPrewhirlAngle ≤ α1 ≤
+	// MaxPrewhirlAngle; 0 is no prewhirl. The angle is taken constant
+	// across the span (not a free-vortex distribution): cθ1 = cm1 tan α1 at
+	// hub, mean and shroud. A radial inlet takes no prewhirl.
+	PrewhirlAngle float64
 }
 
 // Impeller is the blading of the impeller.
@@ -100,8 +116,11 @@ type Geometry struct {
 	InletWidth physics.Meter
 	// EyeHubDiameter is Dh for an axial eye, 0 otherwise.
 	EyeHubDiameter physics.Meter
-	ExitWidth      physics.Meter
-	InletArea      float64 // m2, the eye annulus or π D1 b1
+	// EyeChoice says how the eye tip diameter was found: EyeGivenDiameter,
+	// EyeMeridionalVelocity or EyeMinShroudMach; empty for a radial inlet.
+	EyeChoice string
+	ExitWidth physics.Meter
+	InletArea float64 // m2, the eye annulus or π D1 b1
 	// ExitArea is the geometric exit area π D2 b2, m2; the area open to
 	// the flow is (1 − ExitBlockage) times it.
 	ExitArea float64
@@ -113,9 +132,11 @@ type Velocities struct {
 	// InletBladeSpeed is U at D1 (radial inlet) or at the eye tip.
 	InletBladeSpeed        physics.MeterPerS
 	InletMeridional        physics.MeterPerS
+	InletWhirl             physics.MeterPerS // cθ1 = cm1 tan α1 (prewhirl), 0 without
+	InletAbsoluteMach      float64           // c1/a1, c1 = cm1/cos α1
 	InletRelative          physics.MeterPerS // W1 at D1 or the eye tip (shroud)
-	InletRelativeMach      float64           // W1/a1 at D1 or the eye tip
-	InletBladeAngleShroud  float64           // relative flow angle from meridional at D1 or eye tip, deg
+	InletRelativeMach      float64           // W1/a1 at D1 or the eye tip (shroud)
+	InletBladeAngleShroud  float64           // relative flow angle from meridional at D1 or eye tip, deg (atan((U − cθ1)/cm1))
 	InletBladeAngleMean    float64           // at the rms eye diameter (axial eye), deg
 	InletBladeAngleHub     float64           // at the eye hub (axial eye), deg
 	ExitMeridional         physics.MeterPerS // cr2
@@ -165,12 +186,19 @@ type Sizing struct {
 
 // Size sizes the impeller for duty d with blading imp and inlet in:
 //
-//  1. U2 from the Euler equation with slip and power input factor
-//     (TipSpeed); D2 = 60 U2/(π N).
-//  2. Inlet static state: h1 = h01 − cm1²/2 at s01 (no pre-whirl); flow
-//     area A1 = ṁ/(ρ1 cm1). Radial inlet: D1 = ratio·D2, b1 = A1/(π D1).
-//     Axial eye: D1t = √(4 A1 / (π (1 − ν²))), Dh = ν D1t.
-//  3. Impeller exit: h02 = h01 + w; the impeller has isentropic efficiency
+//  1. Axial eye first (it depends only on the suction state, flow, speed,
+//     hub ratio and prewhirl): the eye tip diameter is given (cm1 from
+//     continuity, iterating the static density), follows from a given
+//     cm1, or is chosen for the least shroud relative Mach number (see
+//     sizeEye and the Inlet fields). Static state h1 = h01 − c1²/2 at s01,
+//     c1 = cm1/cos α1; A1 = ṁ/(ρ1 cm1) = π/4 D1t² (1 − ν²).
+//  2. U2 from the Euler equation with slip and power input factor and the
+//     inlet whirl at the rms eye diameter, w = ψ (U2 cθ2 − U1 cθ1)
+//     (TipSpeedWithPrewhirl; TipSpeed without prewhirl); D2 = 60 U2/(π N);
+//     the eye must be smaller than D2.
+//  3. Radial inlet (no prewhirl): D1 = ratio·D2, A1 = ṁ/(ρ1 cm1),
+//     b1 = A1/(π D1).
+//  4. Impeller exit: h02 = h01 + w; the impeller has isentropic efficiency
 //     η_imp = 1 − share (1 − η_stage), so p02 is the pressure at
 //     (h01 + η_imp w, s01); the static state is h2 = h02 − c2²/2 at s(p02,
 //     h02), c2² = cr2² + cθ2²; b2 = ṁ/(ρ2 cr2 π D2 (1 − B)) with the exit
@@ -181,24 +209,51 @@ type Sizing struct {
 // Sources: continuity and velocity triangles, Saravanamuttoo et al., Gas
 // Turbine Theory, 6th ed. (2009), §4.2-4.3 (the inlet static-density
 // iteration and the impeller depth from the exit density); Dixon & Hall
-// (2014), §7.4-7.9. Valid within the checks below; geometry the service
-// cannot size (eye larger than the impeller, impeller over 4 m) is a
-// DomainError whose Reason says what to change.
+// (2014), §7.4-7.9; the inducer optimisation as in Dixon & Hall (2014), §7
+// "optimum design of a compressor inlet", after Rodgers (from memory).
+// Valid within the checks below; geometry the service cannot size (eye
+// larger than the impeller, impeller over 4 m, choked eye) is a DomainError
+// whose Reason says what to change.
 func Size(d Duty, imp Impeller, in Inlet) (Sizing, error) {
 	if err := checkDuty(d); err != nil {
 		return Sizing{}, err
 	}
-	u2, err := TipSpeed(d.Work, imp.SlipFactor, imp.PowerInputFactor, imp.BladeExitAngle, imp.ExitMeridionalVelocity)
-	if err != nil {
+	if err := checkImpeller(imp.SlipFactor, imp.PowerInputFactor, imp.BladeExitAngle); err != nil {
 		return Sizing{}, err
 	}
-	if !(imp.ExitBlockage >= 0 && imp.ExitBlockage < 0.5) {
-		return Sizing{}, &physics.DomainError{Name: "exit_blockage", Value: imp.ExitBlockage, Want: "0 <= exit_blockage < 0.5",
-			Reason: "the exit blockage is the blocked fraction of the impeller exit area: it must lie in [0, 0.5)"}
+	var out Sizing
+	var u1, ct1 physics.MeterPerS
+	switch in.Kind {
+	case InletAxialEye:
+		var err error
+		if u1, ct1, err = sizeEye(d, in, &out); err != nil {
+			return Sizing{}, err
+		}
+	case InletRadial:
+		if in.PrewhirlAngle != 0 {
+			return Sizing{}, &physics.DomainError{Name: "inlet.prewhirl_angle", Value: in.PrewhirlAngle, Want: "0 for a radial inlet",
+				Reason: "inlet prewhirl is supported only for an axial eye: leave the prewhirl angle out (0) for a radial inlet"}
+		}
+	default:
+		return Sizing{}, &physics.DomainError{Name: "inlet.type", Want: `"radial" or "axial-eye"`,
+			Reason: fmt.Sprintf("unknown inlet type %q: use \"radial\" or \"axial-eye\"", in.Kind)}
+	}
+	if ct1 != 0 && !(float64(d.Work)+imp.PowerInputFactor*float64(u1)*float64(ct1) > 0) {
+		return Sizing{}, &physics.DomainError{Name: "inlet.prewhirl_angle", Value: in.PrewhirlAngle, Want: "a prewhirl taking out less than the stage work",
+			Reason: fmt.Sprintf("the prewhirl of %.3g deg takes out more Euler work (ψ U1 cθ1 = %.4g J/kg) than the stage is to do: use less prewhirl",
+				in.PrewhirlAngle, imp.PowerInputFactor*float64(u1)*float64(ct1))}
+	}
+	u2, err := TipSpeedWithPrewhirl(d.Work, imp.SlipFactor, imp.PowerInputFactor, imp.BladeExitAngle, imp.ExitMeridionalVelocity, u1, ct1)
+	if err != nil {
+		return Sizing{}, err
 	}
 	if !(imp.ExitMeridionalVelocity > 0) {
 		return Sizing{}, &physics.DomainError{Name: "exit_meridional_velocity", Value: float64(imp.ExitMeridionalVelocity),
 			Want: "> 0 m/s", Reason: "the exit meridional velocity must be positive: it carries the flow out of the impeller"}
+	}
+	if !(imp.ExitBlockage >= 0 && imp.ExitBlockage < 0.5) {
+		return Sizing{}, &physics.DomainError{Name: "exit_blockage", Value: imp.ExitBlockage, Want: "0 <= exit_blockage < 0.5",
+			Reason: "the exit blockage is the blocked fraction of the impeller exit area: it must lie in [0, 0.5)"}
 	}
 	d2, err := TipDiameter(u2, d.Speed)
 	if err != nil {
@@ -209,14 +264,17 @@ func Size(d Duty, imp Impeller, in Inlet) (Sizing, error) {
 			Reason: fmt.Sprintf("the speed is too low for this head: at %.4g rev/min the impeller would need a tip diameter of %.4g m to reach the tip speed of %.0f m/s that the work requires; no single stage of at most %.0f m makes this head at this speed: raise the speed or split the head over more stages",
 				float64(d.Speed), float64(d2), float64(u2), float64(MaxTipDiameter))}
 	}
-	var out Sizing
 	out.SuctionFlow = float64(d.MassFlow) / float64(d.Suction.Density)
 	out.Geometry.TipDiameter = d2
 	v := &out.Velocities
 	v.TipSpeed = u2
 	v.MachineMach = float64(u2) / float64(d.Suction.SoundSpeed)
 
-	if err := sizeInlet(d, in, &out); err != nil {
+	if in.Kind == InletAxialEye {
+		if err := checkEyeFits(d, in, out.Geometry); err != nil {
+			return Sizing{}, err
+		}
+	} else if err := sizeRadialInlet(d, in, &out); err != nil {
 		return Sizing{}, err
 	}
 	if err := sizeExit(d, imp, &out); err != nil {
@@ -247,6 +305,27 @@ func Size(d Duty, imp Impeller, in Inlet) (Sizing, error) {
 	return out, nil
 }
 
+// checkEyeFits checks that the eye sized first is smaller than the
+// impeller tip found afterwards, with advice that fits the eye choice.
+func checkEyeFits(d Duty, in Inlet, g Geometry) error {
+	if g.InletDiameter < g.TipDiameter {
+		return nil
+	}
+	switch g.EyeChoice {
+	case EyeGivenDiameter:
+		return &physics.DomainError{Name: "inlet.eye_tip_diameter", Value: float64(g.InletDiameter), Want: "an eye smaller than the impeller",
+			Reason: fmt.Sprintf("the given eye tip diameter of %.4g m is not smaller than the impeller tip diameter of %.4g m at %.4g rev/min: give a smaller eye or lower the speed",
+				float64(g.InletDiameter), float64(g.TipDiameter), float64(d.Speed))}
+	case EyeMinShroudMach:
+		return &physics.DomainError{Name: "speed", Value: float64(d.Speed), Want: "an eye smaller than the impeller",
+			Reason: fmt.Sprintf("the speed is too high for this flow: the eye of least shroud Mach number needs a tip diameter of %.4g m, but at %.4g rev/min the impeller tip diameter is only %.4g m; lower the speed or give a smaller eye",
+				float64(g.InletDiameter), float64(d.Speed), float64(g.TipDiameter))}
+	}
+	return &physics.DomainError{Name: "speed", Value: float64(d.Speed), Want: "an eye smaller than the impeller",
+		Reason: fmt.Sprintf("the speed is too high for this flow: the eye needs a tip diameter of %.4g m, but at %.4g rev/min the impeller tip diameter is only %.4g m; lower the speed or raise the inlet meridional velocity",
+			float64(g.InletDiameter), float64(d.Speed), float64(g.TipDiameter))}
+}
+
 func checkDuty(d Duty) error {
 	switch {
 	case d.Model == nil:
@@ -267,11 +346,16 @@ func checkDuty(d Duty) error {
 	return nil
 }
 
-func sizeInlet(d Duty, in Inlet, out *Sizing) error {
+// sizeRadialInlet sizes a radial inlet at D1 = ratio·D2 (no prewhirl).
+func sizeRadialInlet(d Duty, in Inlet, out *Sizing) error {
 	cm := in.MeridionalVelocity
 	if !(cm > 0) || math.IsInf(float64(cm), 0) {
 		return &physics.DomainError{Name: "inlet.meridional_velocity", Value: float64(cm), Want: "finite, > 0 m/s",
 			Reason: "the inlet meridional velocity must be positive"}
+	}
+	if !(in.DiameterRatio > 0 && in.DiameterRatio < 1) {
+		return &physics.DomainError{Name: "inlet.diameter_ratio", Value: in.DiameterRatio, Want: "0 < D1/D2 < 1",
+			Reason: "the inlet diameter ratio D1/D2 must lie between 0 and 1"}
 	}
 	st, err := gas.StaticState(d.Model, d.Suction, cm)
 	if err != nil {
@@ -281,51 +365,20 @@ func sizeInlet(d Duty, in Inlet, out *Sizing) error {
 	g := &out.Geometry
 	v := &out.Velocities
 	g.InletArea = a1
-	g.Inlet = in.Kind
-	d2 := g.TipDiameter
-	switch in.Kind {
-	case InletRadial:
-		if !(in.DiameterRatio > 0 && in.DiameterRatio < 1) {
-			return &physics.DomainError{Name: "inlet.diameter_ratio", Value: in.DiameterRatio, Want: "0 < D1/D2 < 1",
-				Reason: "the inlet diameter ratio D1/D2 must lie between 0 and 1"}
-		}
-		g.InletDiameter = physics.Meter(in.DiameterRatio) * d2
-		g.InletWidth = physics.Meter(a1 / (math.Pi * float64(g.InletDiameter)))
-	case InletAxialEye:
-		nu := in.HubRatio
-		if !(nu >= 0 && nu < 0.95) {
-			return &physics.DomainError{Name: "inlet.hub_ratio", Value: nu, Want: "0 <= hub_ratio < 0.95",
-				Reason: "the eye hub ratio (hub over eye tip diameter) must lie in [0, 0.95)"}
-		}
-		dt := math.Sqrt(4 * a1 / (math.Pi * (1 - nu*nu)))
-		g.InletDiameter = physics.Meter(dt)
-		g.EyeHubDiameter = physics.Meter(nu * dt)
-		g.InletWidth = physics.Meter((dt - nu*dt) / 2)
-		if g.InletDiameter >= d2 {
-			return &physics.DomainError{Name: "speed", Value: float64(d.Speed), Want: "an eye smaller than the impeller",
-				Reason: fmt.Sprintf("the speed is too high for this flow: the eye needs a tip diameter of %.4g m, but at %.4g rev/min the impeller tip diameter is only %.4g m; lower the speed or raise the inlet meridional velocity",
-					float64(g.InletDiameter), float64(d.Speed), float64(d2))}
-		}
-		um := PeripheralSpeed(physics.Meter(math.Sqrt((dt*dt+nu*nu*dt*dt)/2)), d.Speed)
-		uh := PeripheralSpeed(g.EyeHubDiameter, d.Speed)
-		v.InletBladeAngleMean = math.Atan2(float64(um), float64(cm)) * 180 / math.Pi
-		v.InletBladeAngleHub = math.Atan2(float64(uh), float64(cm)) * 180 / math.Pi
-	default:
-		return &physics.DomainError{Name: "inlet.type", Want: `"radial" or "axial-eye"`,
-			Reason: fmt.Sprintf("unknown inlet type %q: use \"radial\" or \"axial-eye\"", in.Kind)}
-	}
+	g.Inlet = InletRadial
+	g.InletDiameter = physics.Meter(in.DiameterRatio) * g.TipDiameter
+	g.InletWidth = physics.Meter(a1 / (math.Pi * float64(g.InletDiameter)))
 	u1 := PeripheralSpeed(g.InletDiameter, d.Speed)
 	w1 := math.Hypot(float64(cm), float64(u1))
 	v.InletBladeSpeed = u1
 	v.InletMeridional = cm
 	v.InletRelative = physics.MeterPerS(w1)
 	v.InletRelativeMach = w1 / float64(st.SoundSpeed)
+	v.InletAbsoluteMach = float64(cm) / float64(st.SoundSpeed)
 	v.InletBladeAngleShroud = math.Atan2(float64(u1), float64(cm)) * 180 / math.Pi
-	if in.Kind == InletRadial {
-		v.InletBladeAngleMean = v.InletBladeAngleShroud
-		v.InletBladeAngleHub = v.InletBladeAngleShroud
-	}
-	out.Inlet = Station{Static: st, Velocity: cm, Mach: float64(cm) / float64(st.SoundSpeed)}
+	v.InletBladeAngleMean = v.InletBladeAngleShroud
+	v.InletBladeAngleHub = v.InletBladeAngleShroud
+	out.Inlet = Station{Static: st, Velocity: cm, Mach: v.InletAbsoluteMach}
 	return nil
 }
 
@@ -376,6 +429,7 @@ func sizingFinite(s Sizing) bool {
 	return physics.Finite(float64(g.TipDiameter), float64(g.InletDiameter), float64(g.InletWidth), float64(g.EyeHubDiameter),
 		float64(g.ExitWidth), g.InletArea, g.ExitArea,
 		float64(v.TipSpeed), float64(v.InletBladeSpeed), float64(v.InletRelative), v.InletRelativeMach,
+		float64(v.InletWhirl), v.InletAbsoluteMach, float64(v.InletMeridional),
 		v.InletBladeAngleShroud, v.InletBladeAngleMean, v.InletBladeAngleHub, float64(v.ExitWhirl), float64(v.ExitAbsolute),
 		float64(v.ExitRelative), v.ExitAbsoluteMach, v.ExitFlowAngle, v.RelativeVelocityRatio, v.MachineMach,
 		float64(v.ExitStagnationPressure), c.FlowCoefficient, c.WorkCoefficient, c.PolytropicHeadCoefficient,

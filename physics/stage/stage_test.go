@@ -332,10 +332,12 @@ func TestSizeImpossible(t *testing.T) {
 	assert.Contains(t, err.Error(), "static temperature")
 
 	for name, in := range map[string]stage.Inlet{
-		"ratio 1":      {Kind: stage.InletRadial, DiameterRatio: 1, MeridionalVelocity: 100},
-		"ratio NaN":    {Kind: stage.InletRadial, DiameterRatio: math.NaN(), MeridionalVelocity: 100},
-		"hub 0.95":     {Kind: stage.InletAxialEye, HubRatio: 0.95, MeridionalVelocity: 100},
-		"cm zero":      {Kind: stage.InletAxialEye, HubRatio: 0.3, MeridionalVelocity: 0},
+		"ratio 1":   {Kind: stage.InletRadial, DiameterRatio: 1, MeridionalVelocity: 100},
+		"ratio NaN": {Kind: stage.InletRadial, DiameterRatio: math.NaN(), MeridionalVelocity: 100},
+		"hub 0.95":  {Kind: stage.InletAxialEye, HubRatio: 0.95, MeridionalVelocity: 100},
+		// cm1 = 0 at an axial eye now asks for the optimum eye (inducer_test.go)
+		"cm negative":  {Kind: stage.InletAxialEye, HubRatio: 0.3, MeridionalVelocity: -1},
+		"radial cm 0":  {Kind: stage.InletRadial, DiameterRatio: 0.5},
 		"unknown kind": {Kind: "sideways", MeridionalVelocity: 100},
 	} {
 		_, err := stage.Size(base, imp, in)
