@@ -53,3 +53,22 @@ func ExamplePolytropicEfficiencyEstimate() {
 	fmt.Printf("eta_p = %.4f, in range %v\n", e.Value, e.InRange)
 	// Output: eta_p = 0.8553, in range true
 }
+
+// Guide-vane prewhirl of cθ1 = 50 m/s at an rms eye blade speed of
+// 200 m/s takes ψ U1 cθ1 = 10.4 kJ/kg off the Euler work at U2 = 455 m/s
+// (Dixon & Hall 2014, eq. 7.1; numbers invented for the example), and
+// TipSpeedWithPrewhirl inverts it.
+func ExampleEulerWorkWithPrewhirl() {
+	w, err := stage.EulerWorkWithPrewhirl(455, 0.9, 1.04, 0, 140, 200, 50)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	u2, err := stage.TipSpeedWithPrewhirl(w, 0.9, 1.04, 0, 140, 200, 50)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Printf("w = %.1f kJ/kg, U2 = %.1f m/s\n", w/1e3, u2)
+	// Output: w = 183.4 kJ/kg, U2 = 455.0 m/s
+}
