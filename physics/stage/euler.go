@@ -67,7 +67,7 @@ func TipSpeedWithPrewhirl(w physics.JoulePerKg, slip, powerInput, bladeExitAngle
 	we := float64(w) + powerInput*float64(u1)*float64(ct1)
 	if !(we > 0) {
 		return 0, &physics.DomainError{Name: "inlet_whirl", Value: float64(ct1), Want: "w + ψ U1 cθ1 > 0",
-			Reason: fmt.Sprintf("the inlet prewhirl (%.4g m/s at a blade speed of %.4g m/s) takes out more Euler work than the stage is to do: use less prewhirl", float64(ct1), float64(u1))}
+			Reason: fmt.Sprintf("the counter-rotating inlet whirl (%.4g m/s at a blade speed of %.4g m/s) alone gives more Euler work than the stage is to do: use less counter-swirl", float64(ct1), float64(u1))}
 	}
 	return TipSpeed(physics.JoulePerKg(we), slip, powerInput, bladeExitAngle, cr2)
 }

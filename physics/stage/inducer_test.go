@@ -300,6 +300,34 @@ func TestEyeInputErrors(t *testing.T) {
 			assert.Contains(t, err.Error(), tc.reason)
 		})
 	}
+	// no interior optimum: at 50 000 rev/min with 45 deg of prewhirl the
+	// shroud Mach number falls all the way to choking (dW²/dcm1 at the
+	// choke point is 2 cm1 − 2 tan α1 (U1s − cm1 tan α1) < 0 for a fast
+	// eye, derived here), and an optimum eye larger than the impeller
+	for name, tc := range map[string]struct {
+		work, speed, alpha float64
+		field, reason      string
+	}{
+		"optimum at choke":     {400e3, 50000, 45, "inlet.prewhirl_angle", "until the eye chokes"},
+		"optimum eye above D2": {float64(d.Work), 60000, 0, "speed", "eye of least shroud Mach number"},
+	} {
+		dd := d
+		dd.Work, dd.Speed = physics.JoulePerKg(tc.work), physics.RevPerMin(tc.speed)
+		_, err := stage.Size(dd, imp, stage.Inlet{Kind: stage.InletAxialEye, HubRatio: 0.3, PrewhirlAngle: tc.alpha})
+		var de *physics.DomainError
+		require.ErrorAs(t, err, &de, name)
+		assert.Equal(t, tc.field, de.Name, name)
+		assert.Contains(t, err.Error(), tc.reason, name)
+	}
+	// counter-swirl (−30 deg: ψ U1 |cθ1| ≈ 13 kJ/kg here) doing more than the
+	// 5 kJ/kg of work alone: a named error, not a NaN tip speed
+	small := d
+	small.Work = 5e3
+	_, err := stage.Size(small, imp, stage.Inlet{Kind: stage.InletAxialEye, HubRatio: 0.3, PrewhirlAngle: -30})
+	var de *physics.DomainError
+	require.ErrorAs(t, err, &de)
+	assert.Equal(t, "inlet.prewhirl_angle", de.Name)
+	assert.Contains(t, err.Error(), "counter-swirl")
 	// ρ* c* of the 0.1 m eye: T* = 2 T01/(γ+1), ρ* = ρ01 (T*/T01)^2.5
 	// (perfect gas, Dixon & Hall 2014 ch. 1), A = π/4 (0.1² − 0.05²)
 	ts := 2 * 295.0 / 2.4

@@ -238,10 +238,10 @@ func Size(d Duty, imp Impeller, in Inlet) (Sizing, error) {
 		return Sizing{}, &physics.DomainError{Name: "inlet.type", Want: `"radial" or "axial-eye"`,
 			Reason: fmt.Sprintf("unknown inlet type %q: use \"radial\" or \"axial-eye\"", in.Kind)}
 	}
-	if ct1 != 0 && !(float64(d.Work)+imp.PowerInputFactor*float64(u1)*float64(ct1) > 0) {
-		return Sizing{}, &physics.DomainError{Name: "inlet.prewhirl_angle", Value: in.PrewhirlAngle, Want: "a prewhirl taking out less than the stage work",
-			Reason: fmt.Sprintf("the prewhirl of %.3g deg takes out more Euler work (ψ U1 cθ1 = %.4g J/kg) than the stage is to do: use less prewhirl",
-				in.PrewhirlAngle, imp.PowerInputFactor*float64(u1)*float64(ct1))}
+	if ct1 != 0 && d.Work > 0 && !(float64(d.Work)+imp.PowerInputFactor*float64(u1)*float64(ct1) > 0) {
+		return Sizing{}, &physics.DomainError{Name: "inlet.prewhirl_angle", Value: in.PrewhirlAngle, Want: "a counter-swirl doing less than the stage work",
+			Reason: fmt.Sprintf("the counter-rotating prewhirl of %.3g deg alone makes the impeller do %.4g J/kg of Euler work (ψ U1 |cθ1|), more than the %.4g J/kg the stage is to do: use less counter-swirl",
+				in.PrewhirlAngle, -imp.PowerInputFactor*float64(u1)*float64(ct1), float64(d.Work))}
 	}
 	u2, err := TipSpeedWithPrewhirl(d.Work, imp.SlipFactor, imp.PowerInputFactor, imp.BladeExitAngle, imp.ExitMeridionalVelocity, u1, ct1)
 	if err != nil {
