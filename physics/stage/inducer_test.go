@@ -380,3 +380,30 @@ func BenchmarkSizeGivenEye(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkSizeOptimumEyeIdealCH4 is the optimum-eye sizing on the general
+// static-state path (variable-cp ideal methane, gas.StaticState per
+// evaluation); no target, for comparison.
+func BenchmarkSizeOptimumEyeIdealCH4(b *testing.B) {
+	c, err := gas.PureComposition("CH4")
+	if err != nil {
+		b.Fatal(err)
+	}
+	m, err := gas.NewIdeal(c)
+	if err != nil {
+		b.Fatal(err)
+	}
+	s01, err := m.State(300, 30e5)
+	if err != nil {
+		b.Fatal(err)
+	}
+	d := stage.Duty{Model: m, Suction: s01, Work: 120e3, IsentropicEfficiency: 0.8, ImpellerLossShare: 0.5, MassFlow: 25, Speed: 11000}
+	imp := stage.Impeller{SlipFactor: 0.9, PowerInputFactor: 1.02, BladeExitAngle: 30, ExitMeridionalVelocity: 80}
+	in := stage.Inlet{Kind: stage.InletAxialEye, HubRatio: 0.35}
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := stage.Size(d, imp, in); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
