@@ -72,3 +72,18 @@ func ExampleEulerWorkWithPrewhirl() {
 	fmt.Printf("w = %.1f kJ/kg, U2 = %.1f m/s\n", w/1e3, u2)
 	// Output: w = 183.4 kJ/kg, U2 = 455.0 m/s
 }
+
+// Radial blades, σ = 0.9, ψ = 1.04 (stage-examples.md §2 constants, from
+// memory) and Δh0 = 1005 × 193.26 J/kg: 20 deg of guide-vane prewhirl
+// giving cθ1 = 52 m/s at an rms eye blade speed of 216 m/s (numbers
+// invented for the example) needs a faster tip than TipSpeed's 455.5 m/s:
+// U2 = √((w + ψ U1 cθ1)/(ψ σ)) = 469.0 m/s (computed here).
+func ExampleTipSpeedWithPrewhirl() {
+	u2, err := stage.TipSpeedWithPrewhirl(1005*193.26, 0.9, 1.04, 0, 0, 216, 52)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Printf("U2 = %.1f m/s\n", u2)
+	// Output: U2 = 469.0 m/s
+}
