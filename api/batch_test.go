@@ -55,10 +55,10 @@ func TestBatchShapeErrorsPointIntoTheDuty(t *testing.T) {
 	require.Equal(t, http.StatusBadRequest, rec.Code)
 	assert.Contains(t, rec.Body.String(), `"/duties/1/suction/presure"`)
 
-	missing := duty(t, demoDuty, del("speed"))
+	missing := duty(t, demoDuty, del("flow"))
 	rec = do(h, http.MethodPost, "/v1/stage/size/batch", `{"duties": [`+missing+`]}`)
 	require.Equal(t, http.StatusBadRequest, rec.Code)
-	assert.Contains(t, rec.Body.String(), `"/duties/0/speed"`)
+	assert.Contains(t, rec.Body.String(), `"/duties/0/flow"`)
 
 	rec = do(h, http.MethodPost, "/v1/stage/size/batch", `{"duties": []}`)
 	require.Equal(t, http.StatusBadRequest, rec.Code)

@@ -21,6 +21,8 @@ const (
 	dimVolumeFlow
 	dimSpeed
 	dimVelocity
+	dimLength
+	dimPower
 )
 
 // si returns the SI value of q (nil when q is nil), read as dimension dim.
@@ -44,6 +46,10 @@ func si(q *Quantity, dim dimension, field string, ambient float64) (*float64, er
 		v, err = q.Speed()
 	case dimVelocity:
 		v, err = q.Velocity()
+	case dimLength:
+		v, err = q.Length()
+	case dimPower:
+		v, err = q.Power()
 	default:
 		err = fmt.Errorf("no unit parser for dimension %d", dim)
 	}
@@ -86,13 +92,33 @@ func dutyOf(r StageRequest) (service.StageDuty, error) {
 	d := service.StageDuty{
 		Gas:                  gasInputOf(r.Gas),
 		PressureRatio:        r.PressureRatio,
-		IsentropicEfficiency: r.Efficiency.Isentropic,
-		PolytropicEfficiency: r.Efficiency.Polytropic,
 		MechanicalEfficiency: r.MechanicalEfficiency,
-		Impeller: service.ImpellerInput{BladeExitAngle: must(r.Impeller.BladeExitAngle), SlipFactor: r.Impeller.SlipFactor,
-			SlipCorrelation: r.Impeller.SlipCorrelation, BladeCount: intOr0(r.Impeller.BladeCount),
-			PowerInputFactor: r.Impeller.PowerInputFactor, Construction: r.Impeller.Construction,
-			Inlet: service.InletInput{Type: r.Impeller.Inlet.Type, DiameterRatio: r.Impeller.Inlet.DiameterRatio, HubRatio: r.Impeller.Inlet.HubRatio}},
+		SpeedStep:            r.SpeedStep,
+	}
+	imp := ImpellerSpec{}
+	if r.Impeller != nil {
+		imp = *r.Impeller
+	}
+	inlet := InletSpec{}
+	if imp.Inlet != nil {
+		inlet = *imp.Inlet
+	}
+	d.Impeller = service.ImpellerInput{BladeExitAngle: imp.BladeExitAngle, SlipFactor: imp.SlipFactor,
+		SlipModel: imp.SlipModel, BladeCount: intOr0(imp.BladeCount),
+		PowerInputFactor: imp.PowerInputFactor, Construction: imp.Construction, ExitBlockage: imp.ExitBlockage,
+		Inlet: service.InletInput{Type: inlet.Type, DiameterRatio: inlet.DiameterRatio, HubRatio: inlet.HubRatio,
+			PrewhirlAngle: inlet.PrewhirlAngle}}
+	if r.Efficiency != nil {
+		d.IsentropicEfficiency, d.PolytropicEfficiency = r.Efficiency.Isentropic, r.Efficiency.Polytropic
+	}
+	if r.SpeedTarget != nil {
+		d.SpeedTarget = &service.SpeedTarget{SpecificSpeed: r.SpeedTarget.SpecificSpeed, FlowCoefficient: r.SpeedTarget.FlowCoefficient}
+	}
+	if len(r.LimitOverrides) > 0 {
+		d.LimitOverrides = make(map[string]service.LevelOverride, len(r.LimitOverrides))
+		for k, o := range r.LimitOverrides {
+			d.LimitOverrides[k] = service.LevelOverride{Warning: must(o.Warning), Limit: o.Limit}
+		}
 	}
 	if r.Diffuser != nil {
 		d.Diffuser = r.Diffuser.Type
@@ -118,9 +144,14 @@ func dutyOf(r StageRequest) (service.StageDuty, error) {
 	if err == nil {
 		d.StandardVolumeFlow, d.StandardReference, err = standardFlow(r.Flow)
 	}
-	d.Speed = must(conv(r.Speed, dimSpeed, "speed"))
-	d.Impeller.ExitMeridionalVelocity = must(conv(r.Impeller.ExitMeridionalVelocity, dimVelocity, "impeller.exit_meridional_velocity"))
-	d.Impeller.Inlet.MeridionalVelocity = must(conv(r.Impeller.Inlet.MeridionalVelocity, dimVelocity, "impeller.inlet.meridional_velocity"))
+	d.Speed = conv(r.Speed, dimSpeed, "speed")
+	d.TipDiameter = conv(r.TipDiameter, dimLength, "tip_diameter")
+	d.Impeller.ExitMeridionalVelocity = conv(imp.ExitMeridionalVelocity, dimVelocity, "impeller.exit_meridional_velocity")
+	d.Impeller.Inlet.MeridionalVelocity = conv(inlet.MeridionalVelocity, dimVelocity, "impeller.inlet.meridional_velocity")
+	d.Impeller.Inlet.EyeTipDiameter = conv(inlet.EyeTipDiameter, dimLength, "impeller.inlet.eye_tip_diameter")
+	if r.Driver != nil {
+		d.Driver = &service.DriverInput{Margin: r.Driver.Margin, Rating: conv(r.Driver.Rating, dimPower, "driver.rating")}
+	}
 	if err != nil {
 		return service.StageDuty{}, err
 	}
@@ -172,21 +203,27 @@ func responseOf(res service.StageResult) (StageResponse, error) {
 		MassFlow: res.MassFlow, SuctionVolumeFlow: res.SuctionVolumeFlow, Speed: res.Speed,
 		Discharge: DischargeOut{Pressure: float64(p.Discharge.Pressure), Temperature: float64(p.Discharge.Temperature),
 			IsentropicTemperature: float64(p.IsentropicDischarge.Temperature)},
-		Work:       float64(p.Work),
-		Head:       HeadOut{Isentropic: float64(p.IsentropicHead), Polytropic: float64(p.PolytropicHead)},
-		Efficiency: EfficiencyOut{Isentropic: p.IsentropicEfficiency, Polytropic: p.PolytropicEfficiency},
+		Work: float64(p.Work),
+		Head: HeadOut{Isentropic: float64(p.IsentropicHead), Polytropic: float64(p.PolytropicHead)},
+		Efficiency: EfficiencyOut{Isentropic: p.IsentropicEfficiency, Polytropic: p.PolytropicEfficiency,
+			Estimated: res.EfficiencyEstimated, InRange: !res.EfficiencyEstimated || res.EfficiencyInRange},
+		SpeedChoice: SpeedChoiceOut{Basis: res.SpeedBasis, Unrounded: res.SpeedUnrounded},
+		Inducer: InducerOut{EyeChoice: g.EyeChoice, ShroudRelativeMach: v.InletRelativeMach, AbsoluteMach: v.InletAbsoluteMach,
+			PrewhirlAngle: res.PrewhirlAngle, BladeAngleHub: v.InletBladeAngleHub, BladeAngleMean: v.InletBladeAngleMean,
+			BladeAngleShroud: v.InletBladeAngleShroud},
 		Power: PowerOut{Gas: res.Power.Gas, Shaft: res.Power.Shaft, MechanicalEfficiency: res.Power.MechanicalEfficiency,
 			DriverRating: res.Power.DriverRating, DriverMargin: res.Power.DriverMargin},
 		Velocities: VelocitiesOut{TipSpeed: float64(v.TipSpeed), InletBladeSpeed: float64(v.InletBladeSpeed),
-			InletMeridional: float64(v.InletMeridional), InletRelative: float64(v.InletRelative), InletRelativeMach: v.InletRelativeMach,
+			InletMeridional: float64(v.InletMeridional), InletWhirl: float64(v.InletWhirl), InletRelative: float64(v.InletRelative), InletRelativeMach: v.InletRelativeMach,
 			InletBladeAngleShroud: v.InletBladeAngleShroud, InletBladeAngleMean: v.InletBladeAngleMean, InletBladeAngleHub: v.InletBladeAngleHub,
 			ExitMeridional: float64(v.ExitMeridional), ExitWhirl: float64(v.ExitWhirl), ExitAbsolute: float64(v.ExitAbsolute),
 			ExitRelative: float64(v.ExitRelative), ExitAbsoluteMach: v.ExitAbsoluteMach, ExitFlowAngle: v.ExitFlowAngle,
 			RelativeVelocityRatio: v.RelativeVelocityRatio, MachineMach: v.MachineMach},
 		Geometry: GeometryOut{TipDiameter: float64(g.TipDiameter), InletDiameter: float64(g.InletDiameter),
-			InletWidth: float64(g.InletWidth), ExitWidth: float64(g.ExitWidth)},
-		Coefficients: CoefficientsOut{Slip: res.SlipFactor, Flow: c.FlowCoefficient, ExitFlow: v.FlowCoefficientExit, Work: c.WorkCoefficient,
-			PolytropicHead: c.PolytropicHeadCoefficient, SpecificSpeed: c.SpecificSpeed, ExitWidthRatio: c.ExitWidthRatio,
+			InletWidth: float64(g.InletWidth), ExitWidth: float64(g.ExitWidth), ExitBlockage: res.ExitBlockage,
+			BladeExitAngle: res.Impeller.BladeExitAngle},
+		Coefficients: CoefficientsOut{Slip: res.SlipFactor, PowerInputFactor: res.Impeller.PowerInputFactor, Flow: c.FlowCoefficient, ExitFlow: v.FlowCoefficientExit, Work: c.WorkCoefficient,
+			PolytropicHead: c.PolytropicHeadCoefficient, SpecificSpeed: c.SpecificSpeed, SpecificDiameter: c.SpecificDiameter, ExitWidthRatio: c.ExitWidthRatio,
 			InletDiameterRatio: c.InletTipRatio},
 		Stations: StationsOut{
 			Suction:                   stateOut(p.Suction.Pressure, p.Suction.Temperature, p.Suction.Density, p.Suction.Compressibility, p.Suction.SoundSpeed, 0),
@@ -223,25 +260,29 @@ func responseOf(res service.StageResult) (StageResponse, error) {
 		}
 	}
 	if g.Inlet == stage.InletAxialEye {
-		h := float64(g.EyeHubDiameter)
-		out.Geometry.EyeHubDiameter = &h
+		h, t := float64(g.EyeHubDiameter), float64(g.InletDiameter)
+		out.Geometry.EyeHubDiameter, out.Geometry.EyeTipDiameter = &h, &t
+	}
+	if res.BladeCount > 0 {
+		n := res.BladeCount
+		out.Geometry.BladeCount = &n
+	}
+	if res.SpeedBasis != "given" {
+		t := res.SpeedTarget
+		out.SpeedChoice.Target = &t
 	}
 	for _, a := range res.Assessments {
-		l := LimitOut{Code: a.Rule.Code, Quantity: a.Rule.Quantity, Severity: string(a.Severity), Value: a.Value,
-			Caution: a.Rule.Caution, Margin: a.Margin, Unit: a.Rule.Unit, Source: a.Rule.Source}
-		if !math.IsNaN(a.Rule.Critical) {
-			crit := a.Rule.Critical
-			l.Critical = &crit
+		l := LimitOut{Rule: a.Rule.ID, Code: a.Rule.Code, Quantity: a.Rule.Quantity, Severity: string(a.Severity), Value: a.Value,
+			Warning: a.Rule.Warning, Margin: a.Margin, Unit: a.Rule.Unit, Basis: a.Rule.Basis}
+		if !math.IsNaN(a.Rule.Limit) {
+			lim := a.Rule.Limit
+			l.Limit = &lim
 		}
 		out.Limits = append(out.Limits, l)
 	}
 	for _, w := range res.Warnings {
-		wo := WarningOut{Code: w.Code, Severity: w.Severity, Message: w.Message, Unit: w.Unit, Source: w.Source}
-		if w.Measured {
-			val, lim, mar := w.Value, w.Limit, w.Margin
-			wo.Value, wo.Limit, wo.Margin = &val, &lim, &mar
-		}
-		out.Warnings = append(out.Warnings, wo)
+		out.Warnings = append(out.Warnings, WarningOut{Code: w.Code, Severity: w.Severity, Message: w.Message,
+			Value: w.Value, Limit: w.Limit, Margin: w.Margin, Unit: w.Unit, Basis: w.Basis})
 	}
 	out.Provenance = provenanceOut(res.Provenance)
 	if err := allFinite(out); err != nil {

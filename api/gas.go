@@ -241,7 +241,7 @@ func gasInputOf(g GasSpec) service.GasInput {
 }
 
 func provenanceOut(p service.Provenance) ProvenanceOut {
-	out := ProvenanceOut{ModelVersion: p.ModelVersion, GasModel: p.GasModel, InputHash: p.InputHash,
+	out := ProvenanceOut{ModelVersion: p.ModelVersion, ServiceVersion: p.ServiceVersion, GasModel: p.GasModel, InputHash: p.InputHash,
 		Methods: []MethodOut{}, DefaultsApplied: []DefaultOut{}}
 	for _, m := range p.Methods {
 		out.Methods = append(out.Methods, MethodOut(m))

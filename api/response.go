@@ -10,8 +10,10 @@ type StageResponse struct {
 	// StandardVolumeFlow is the flow at reference conditions, m3/s.
 	StandardVolumeFlow StandardFlowsOut `json:"standard_volume_flow"`
 	// Speed is the rotational speed, rev/min.
-	Speed     float64      `json:"speed" format:"double" example:"21000"`
-	Discharge DischargeOut `json:"discharge"`
+	Speed float64 `json:"speed" format:"double" example:"21000"`
+	// SpeedChoice says how the speed was found.
+	SpeedChoice SpeedChoiceOut `json:"speed_choice"`
+	Discharge   DischargeOut   `json:"discharge"`
 	// Work is the actual specific work h02 − h01, J/kg.
 	Work         float64         `json:"work" format:"double" example:"150000"`
 	Head         HeadOut         `json:"head"`
@@ -19,18 +21,55 @@ type StageResponse struct {
 	Power        PowerOut        `json:"power"`
 	Velocities   VelocitiesOut   `json:"velocities"`
 	Geometry     GeometryOut     `json:"geometry"`
+	Inducer      InducerOut      `json:"inducer"`
 	Coefficients CoefficientsOut `json:"coefficients"`
 	Stations     StationsOut     `json:"stations"`
 	Polytropic   PolytropicOut   `json:"polytropic_methods"`
-	// Verdict is the worst severity of the limit checks: "within-limits", "caution" or "critical".
-	Verdict string `json:"verdict" enums:"within-limits,caution,critical" example:"caution"`
-	// Limits lists every limit checked, with its margin.
+	// Verdict follows the worst warning: "within-limits" (no warning),
+	// "near-limits" (notices only), "past-warning" (a warning level passed)
+	// or "past-limit" (a limit of normal practice passed).
+	Verdict string `json:"verdict" enums:"within-limits,near-limits,past-warning,past-limit" example:"past-warning"`
+	// Limits lists every limit rule applied, with its levels and margin.
 	Limits []LimitOut `json:"limits"`
-	// Warnings lists the limits past their caution level and other notices.
+	// Warnings lists every concern: limits near (notice) or past their
+	// levels, and the validity of the physics (near-critical-state,
+	// condensation-risk, water-dew-point, correlation-out-of-range,
+	// polytropic-methods-disagree). Each carries a value and a limit.
 	Warnings   []WarningOut  `json:"warnings"`
 	Provenance ProvenanceOut `json:"provenance"`
-	// Cautions says what the numbers are and defers to the manufacturer, the standards and licensed engineering practice.
-	Cautions string `json:"cautions"`
+	// Cautions are short sentences: what the numbers are, the protections
+	// the duty needs and the hazards of its gas; they defer to the
+	// manufacturer, the standards, local codes and licensed engineering practice.
+	Cautions []string `json:"cautions"`
+}
+
+// SpeedChoiceOut says how the speed was found.
+type SpeedChoiceOut struct {
+	// Basis is "given", "tip-diameter", "specific-speed" or "flow-coefficient".
+	Basis string `json:"basis" enums:"given,tip-diameter,specific-speed,flow-coefficient" example:"specific-speed"`
+	// Target is the specific speed or flow coefficient aimed at, or the tip diameter given (m); absent for a given speed.
+	Target *float64 `json:"target,omitempty" format:"double" example:"0.7"`
+	// Unrounded is the speed before rounding to speed_step, rev/min.
+	Unrounded float64 `json:"unrounded" format:"double" example:"21437"`
+}
+
+// InducerOut is the inlet of the blades: at the eye (axial eye) or at D1 (radial inlet).
+type InducerOut struct {
+	// EyeChoice is how the eye tip diameter was found: "given-diameter",
+	// "meridional-velocity" or "min-shroud-mach" (absent for a radial inlet).
+	EyeChoice string `json:"eye_choice,omitempty" enums:"given-diameter,meridional-velocity,min-shroud-mach" example:"min-shroud-mach"`
+	// ShroudRelativeMach is W1/a1 at the eye tip (or at D1 of a radial inlet).
+	ShroudRelativeMach float64 `json:"shroud_relative_mach" format:"double" example:"0.82"`
+	// AbsoluteMach is c1/a1 entering the blades.
+	AbsoluteMach float64 `json:"absolute_mach" format:"double" example:"0.4"`
+	// PrewhirlAngle is the inlet guide-vane flow angle used, deg from axial.
+	PrewhirlAngle float64 `json:"prewhirl_angle" format:"double" example:"0"`
+	// BladeAngleHub, BladeAngleMean and BladeAngleShroud are the relative
+	// flow angles from the meridional direction at the eye hub, the rms
+	// diameter and the eye tip, deg (all equal for a radial inlet).
+	BladeAngleHub    float64 `json:"blade_angle_hub" format:"double" example:"35"`
+	BladeAngleMean   float64 `json:"blade_angle_mean" format:"double" example:"52"`
+	BladeAngleShroud float64 `json:"blade_angle_shroud" format:"double" example:"60"`
 }
 
 // StandardFlowsOut is the flow as standard volume, m3/s, at each reference
@@ -64,6 +103,11 @@ type HeadOut struct {
 type EfficiencyOut struct {
 	Isentropic float64 `json:"isentropic" format:"double" example:"0.8"`
 	Polytropic float64 `json:"polytropic" format:"double" example:"0.83"`
+	// Estimated is true when no efficiency was given and the polytropic
+	// efficiency is the Casey & Robinson (2013) estimate.
+	Estimated bool `json:"estimated" example:"false"`
+	// InRange is false when that estimate was made outside the correlation's range.
+	InRange bool `json:"in_range" example:"true"`
 }
 
 // PowerOut is the power balance, W.
@@ -87,7 +131,9 @@ type VelocitiesOut struct {
 	InletBladeSpeed float64 `json:"inlet_blade_speed" format:"double"`
 	// InletMeridional is cm1, m/s.
 	InletMeridional float64 `json:"inlet_meridional" format:"double"`
-	// InletRelative is W1 at D1 or the eye tip (shroud), m/s.
+	// InletWhirl is cθ1 = cm1 tan(prewhirl angle), m/s (0 without inlet guide vanes).
+	InletWhirl float64 `json:"inlet_whirl" format:"double"`
+	// InletRelative is W1 = √(cm1² + (U1 − cθ1)²) at D1 or the eye tip (shroud), m/s.
 	InletRelative float64 `json:"inlet_relative" format:"double"`
 	// InletRelativeMach is W1/a1 at D1 or the eye tip.
 	InletRelativeMach float64 `json:"inlet_relative_mach" format:"double"`
@@ -124,14 +170,24 @@ type GeometryOut struct {
 	InletWidth float64 `json:"inlet_width" format:"double"`
 	// ExitWidth is b2 from continuity at the exit static density, m.
 	ExitWidth float64 `json:"exit_width" format:"double"`
+	// EyeTipDiameter is the tip diameter of an axial eye, m (absent for a radial inlet).
+	EyeTipDiameter *float64 `json:"eye_tip_diameter,omitempty" format:"double"`
 	// EyeHubDiameter is the hub diameter of an axial eye, m (absent for a radial inlet).
 	EyeHubDiameter *float64 `json:"eye_hub_diameter,omitempty" format:"double"`
+	// ExitBlockage is the blocked fraction of the exit area used for b2.
+	ExitBlockage float64 `json:"exit_blockage" format:"double" example:"0.1"`
+	// BladeExitAngle is the backsweep from radial used, deg.
+	BladeExitAngle float64 `json:"blade_exit_angle" format:"double" example:"40"`
+	// BladeCount is the exit blade count of the slip model (absent when a slip factor was given).
+	BladeCount *int `json:"blade_count,omitempty" example:"17"`
 }
 
 // CoefficientsOut are the non-dimensional groups.
 type CoefficientsOut struct {
-	// Slip is the slip factor used (given, or from the slip correlation).
+	// Slip is the slip factor used (given, or from the slip model).
 	Slip float64 `json:"slip_factor" format:"double"`
+	// PowerInputFactor is the work over the Euler work used (>= 1).
+	PowerInputFactor float64 `json:"power_input_factor" format:"double"`
 	// Flow is φ = Q01 / (U2 π D2²/4).
 	Flow float64 `json:"flow" format:"double"`
 	// ExitFlow is φ2 = cr2/U2.
@@ -140,8 +196,10 @@ type CoefficientsOut struct {
 	Work float64 `json:"work" format:"double"`
 	// PolytropicHead is Hp/U2².
 	PolytropicHead float64 `json:"polytropic_head" format:"double"`
-	// SpecificSpeed is Ω √Q01 / Δh_s^0.75 with Ω in rad/s.
+	// SpecificSpeed is Ns = Ω √Q01 / Δh_s^0.75 with Ω in rad/s, Q01 in m3/s, Δh_s in J/kg.
 	SpecificSpeed float64 `json:"specific_speed" format:"double"`
+	// SpecificDiameter is Ds = D2 Δh_s^0.25 / √Q01 (Balje), SI units.
+	SpecificDiameter float64 `json:"specific_diameter" format:"double"`
 	// ExitWidthRatio is b2/D2.
 	ExitWidthRatio float64 `json:"exit_width_ratio" format:"double"`
 	// InletDiameterRatio is D1/D2 (or eye tip over D2).
@@ -198,42 +256,53 @@ type PolytropicOut struct {
 	Difference float64 `json:"difference" format:"double"`
 }
 
-// LimitOut is one limit check.
+// LimitOut is one limit rule applied to the stage.
 type LimitOut struct {
-	Code     string  `json:"code" example:"tip-speed-high"`
-	Quantity string  `json:"quantity" example:"impeller tip speed (closed-steel)"`
-	Severity string  `json:"severity" enums:"within,caution,critical" example:"within"`
+	// Rule names the rule; it keys limit_overrides.
+	Rule string `json:"rule" example:"flow-coefficient-low"`
+	// Code is the warning code the rule raises (shared by the low and high rules of a quantity).
+	Code     string `json:"code" example:"flow-coefficient"`
+	Quantity string `json:"quantity" example:"flow coefficient Q01/(U2 π D2²/4)"`
+	// Severity is "ok", "notice" (within 5 % of the warning level), "warning" or "limit".
+	Severity string  `json:"severity" enums:"ok,notice,warning,limit" example:"ok"`
 	Value    float64 `json:"value" format:"double"`
-	// Caution is the soft limit.
-	Caution float64 `json:"caution" format:"double"`
-	// Critical is the limit of normal practice (absent when the source gives none).
-	Critical *float64 `json:"critical,omitempty" format:"double"`
-	// Margin is (limit − value)/limit against the caution limit: positive inside, negative past it.
+	// Warning is the soft level.
+	Warning float64 `json:"warning" format:"double"`
+	// Limit is the level of normal practice (absent when the source gives none).
+	Limit *float64 `json:"limit,omitempty" format:"double"`
+	// Margin is the distance to the warning level as a fraction of it: positive inside, negative past it.
 	Margin float64 `json:"margin" format:"double"`
 	Unit   string  `json:"unit" example:"m/s"`
-	Source string  `json:"source"`
+	// Basis is where the levels come from: a standard or paper, "common practice, no source", or a caller override.
+	Basis string `json:"basis"`
 }
 
-// WarningOut is a structured warning.
+// WarningOut is a structured warning: every warning carries the value
+// measured and the level it is near or past.
 type WarningOut struct {
-	Code     string `json:"code" example:"inducer-mach-high"`
-	Severity string `json:"severity" enums:"notice,caution,critical" example:"caution"`
+	// Code is our own name for the concern, e.g. "tip-speed", "inducer-mach", "condensation-risk".
+	Code string `json:"code" example:"inducer-mach"`
+	// Severity is "notice" (near a level), "warning" (past the soft level) or "limit" (past the limit of normal practice).
+	Severity string `json:"severity" enums:"notice,warning,limit" example:"warning"`
 	Message  string `json:"message"`
-	// Value measured (absent for a notice).
-	Value *float64 `json:"value,omitempty" format:"double"`
-	// Limit passed (absent for a notice).
-	Limit *float64 `json:"limit,omitempty" format:"double"`
-	// Margin to the caution limit as a fraction of it (absent for a notice).
-	Margin *float64 `json:"margin,omitempty" format:"double"`
-	Unit   string   `json:"unit,omitempty"`
-	Source string   `json:"source"`
+	// Value measured, in unit.
+	Value float64 `json:"value" format:"double"`
+	// Limit is the level the value is near or past, in unit.
+	Limit float64 `json:"limit" format:"double"`
+	// Margin is the distance to the warning level as a fraction of it: positive inside, negative past it.
+	Margin float64 `json:"margin" format:"double"`
+	Unit   string  `json:"unit" example:"-"`
+	// Basis is where the level comes from: a standard or paper, "common practice, no source", or a caller override.
+	Basis string `json:"basis"`
 }
 
 // ProvenanceOut says how the result was obtained.
 type ProvenanceOut struct {
-	ModelVersion string      `json:"model_version" example:"stagewright-physics 0.2.0"`
-	GasModel     string      `json:"gas_model" example:"ideal-constant"`
-	Methods      []MethodOut `json:"methods"`
+	ModelVersion string `json:"model_version" example:"stagewright-physics 0.3.0"`
+	// ServiceVersion is the build of the service that answered.
+	ServiceVersion string      `json:"service_version" example:"v0.3.0"`
+	GasModel       string      `json:"gas_model" example:"ideal-constant"`
+	Methods        []MethodOut `json:"methods"`
 	// DefaultsApplied lists every default the service filled in.
 	DefaultsApplied []DefaultOut `json:"defaults_applied"`
 	// InputHash is the SHA-256 of the normalised duty in SI units.

@@ -31,9 +31,9 @@ func TestEveryComponentUnderEveryModel(t *testing.T) {
 			assert.Greater(t, float64(st.Cp), float64(st.Cv), "%s %s", c.ID, model)
 			assert.Greater(t, float64(st.SoundSpeed), 0.0, "%s %s", c.ID, model)
 			d := service.StageDuty{Gas: g, SuctionPressure: 1e5, SuctionTemperature: temp, PressureRatio: f(1.5),
-				MassFlow: f(1), Speed: 15000, PolytropicEfficiency: f(0.8),
-				Impeller: service.ImpellerInput{BladeExitAngle: 30, SlipFactor: f(0.88), ExitMeridionalVelocity: 60,
-					Inlet: service.InletInput{Type: "radial", DiameterRatio: f(0.45), MeridionalVelocity: 60}}}
+				MassFlow: f(1), Speed: f(15000), PolytropicEfficiency: f(0.8),
+				Impeller: service.ImpellerInput{BladeExitAngle: f(30), SlipFactor: f(0.88), ExitMeridionalVelocity: f(60),
+					Inlet: service.InletInput{Type: "radial", DiameterRatio: f(0.45), MeridionalVelocity: f(60)}}}
 			_, err = svc.SizeStage(context.Background(), d)
 			require.NoError(t, err, "%s %s", c.ID, model)
 		}

@@ -35,6 +35,7 @@ func (s *Service) GasProperties(ctx context.Context, g GasInput, t, p float64) (
 	}
 	var res PropertiesResult
 	res.Provenance.ModelVersion = ModelVersion
+	res.Provenance.ServiceVersion = s.version
 	res.Provenance.InputHash = hashOf(struct {
 		Gas GasInput `json:"gas"`
 		T   float64  `json:"temperature"`

@@ -2,6 +2,7 @@ package service
 
 import (
 	"fmt"
+	"math"
 
 	"stagewright/physics"
 	"stagewright/physics/gas"
@@ -34,16 +35,14 @@ func checkPhases(m gas.Model, stations []station) ([]Warning, []float64) {
 			}
 		}
 	}
-	seenValidity := gas.Validity(0)
+	seenCp := false
 	for k, s := range stations {
 		full, err := fullState(m, s.st.Temperature, s.st.Pressure)
 		if err != nil {
 			continue
 		}
 		if full.Phase == gas.PhaseLiquid || full.Phase == gas.PhaseTwoPhase {
-			out = append(out, Warning{Code: "condensation-risk", Severity: "critical",
-				Message: fmt.Sprintf("at the %s (%.1f K, %.0f Pa) the gas model finds the gas %s: liquid may form in the machine", s.name, float64(full.Temperature), float64(full.Pressure), full.Phase),
-				Source:  "phase from the equation of state's root and the Michelsen tangent-plane stability test (Fluid Phase Equilib. 9:1, 1982)"})
+			out = append(out, condensationWarning(m, s, full))
 		}
 		if xw > 0 {
 			c, err := water.WaterCondensation(s.st.Temperature, xw, s.st.Pressure)
@@ -55,26 +54,26 @@ func checkPhases(m gas.Model, stations []station) ([]Warning, []float64) {
 					// (critical); at a static station (the eye, the impeller
 					// tip) the dip lasts a moment and the gas reheats, so a
 					// mist may form but is a caution (common practice, no source).
-					sev := "caution"
+					sev := "warning"
 					if c.Condenses && !s.static {
-						sev = "critical"
+						sev = "limit"
 					}
-					out = append(out, Warning{Measured: true, Code: "water-dew-point", Severity: sev,
+					out = append(out, Warning{Code: "water-dew-point", Severity: sev,
 						Message: dewMessage(s.name, margin, float64(c.DewPoint)),
 						Value:   float64(s.st.Temperature), Limit: float64(c.DewPoint) + 5, Margin: margin / (float64(c.DewPoint) + 5), Unit: "K",
-						Source: "IAPWS-IF97 region 4 saturation temperature at the water partial pressure; 5 K approach is common practice, no source"})
+						Basis: "IAPWS-IF97 region 4 saturation temperature at the water partial pressure; 5 K approach is common practice, no source"})
 				}
 			}
 		}
-		seenValidity |= full.Validity
+		if full.Validity&gas.CpExtrapolated != 0 && !seenCp {
+			if w, ok := cpRangeWarning(comp, hasComp, s); ok {
+				out = append(out, w)
+				seenCp = true
+			}
+		}
 		if w, ok := cubicAccuracy(m, comp, hasComp, s); ok {
 			out = append(out, w)
 		}
-	}
-	if seenValidity&gas.CpExtrapolated != 0 {
-		out = append(out, Warning{Code: "cp-extrapolated", Severity: "caution",
-			Message: "an ideal-gas heat capacity correlation was used beyond its stated temperature range at one or more stations",
-			Source:  "ranges of the NIST Shomate fits and Poling et al. (2001) polynomials in the component catalogue"})
 	}
 	return out, dew
 }
@@ -112,10 +111,10 @@ func cubicAccuracy(m gas.Model, comp gas.Composition, ok bool, s station) (Warni
 	if !(tr < 1.05 && pr > 0.5) || !physics.Finite(tr, pr) {
 		return Warning{}, false
 	}
-	return Warning{Measured: true, Code: "near-critical-state", Severity: "caution",
+	return Warning{Code: "near-critical-state", Severity: "warning",
 		Message: fmt.Sprintf("at the %s the gas is near its critical point (T/Tc = %.3f, p/Pc = %.2f): cubic-equation densities may err by more than 3 %%", s.name, tr, pr),
 		Value:   tr, Limit: 1.05, Margin: (tr - 1.05) / 1.05, Unit: "-",
-		Source: "derived from the Peng-Robinson deviations of testdata/reference/real-gas-checks.csv (rules-of-thumb.md §11)"}, true
+		Basis: "derived from the Peng-Robinson deviations of testdata/reference/real-gas-checks.csv (rules-of-thumb.md §11)"}, true
 }
 
 func dewMessage(where string, margin, dew float64) string {
@@ -123,4 +122,70 @@ func dewMessage(where string, margin, dew float64) string {
 		return fmt.Sprintf("at the %s the gas is %.1f K below its water dew point of %.1f K: water condenses", where, -margin, dew)
 	}
 	return fmt.Sprintf("at the %s the gas is only %.1f K above its water dew point of %.1f K", where, margin, dew)
+}
+
+// dewPointer is a model that can locate its dew point (the cubic models).
+type dewPointer interface {
+	DewTemperature(p physics.Pascal) (physics.Kelvin, error)
+}
+
+// condensationWarning reports a station the model finds liquid or two-phase,
+// with the station temperature against the dew-point temperature at its
+// pressure (Michelsen 1982; found only here, when condensation is already
+// known, because it costs some 200 µs). A liquid state at a stagnation
+// station is a "limit"; at a static station (eye, impeller tip) the state
+// lasts a moment, so it is a "warning" (common practice, no source).
+func condensationWarning(m gas.Model, s station, full gas.State) Warning {
+	sev := "limit"
+	if s.static {
+		sev = "warning"
+	}
+	t := float64(full.Temperature)
+	w := Warning{Code: "condensation-risk", Severity: sev, Value: t, Limit: t, Unit: "K",
+		Basis: "phase from the equation of state's root and the Michelsen tangent-plane stability test (Fluid Phase Equilib. 9:1, 1982); dew point by Michelsen & Mollerup (2007), ch. 12"}
+	if dp, ok := m.(dewPointer); ok {
+		if td, err := dp.DewTemperature(full.Pressure); err == nil && physics.Finite(float64(td)) && td > 0 {
+			w.Limit = float64(td)
+			w.Margin = (t - float64(td)) / float64(td)
+			w.Message = fmt.Sprintf("at the %s (%.1f K, %.0f Pa) the gas model finds the gas %s, %.1f K below its dew point of %.1f K: liquid may form in the machine",
+				s.name, t, float64(full.Pressure), full.Phase, float64(td)-t, float64(td))
+			return w
+		}
+	}
+	w.Message = fmt.Sprintf("at the %s (%.1f K, %.0f Pa) the gas model finds the gas %s (the dew point could not be located, so the limit shown is the station temperature itself): liquid may form in the machine",
+		s.name, t, float64(full.Pressure), full.Phase)
+	return w
+}
+
+// cpRangeWarning reports the first station whose temperature lies outside
+// a component's ideal-gas cp correlation range, with the nearest range end
+// as the limit (ranges of the NIST Shomate fits and the Poling et al. 2001
+// polynomials in the catalogue).
+func cpRangeWarning(comp gas.Composition, ok bool, s station) (Warning, bool) {
+	if !ok {
+		return Warning{}, false
+	}
+	t := float64(s.st.Temperature)
+	x := comp.MoleFractions()
+	for i := range comp.Len() {
+		if x[i] <= 0 {
+			continue
+		}
+		c := comp.Component(i)
+		lo, hi := c.TemperatureRange()
+		limit := 0.0
+		switch {
+		case t < float64(lo):
+			limit = float64(lo)
+		case t > float64(hi):
+			limit = float64(hi)
+		default:
+			continue
+		}
+		return Warning{Code: "correlation-out-of-range", Severity: "notice",
+			Message: fmt.Sprintf("at the %s (%.1f K) the ideal-gas heat capacity of %s is extrapolated beyond its fitted range (%.0f-%.0f K)", s.name, t, c.ID, float64(lo), float64(hi)),
+			Value:   t, Limit: limit, Margin: -math.Abs(t-limit) / limit, Unit: "K",
+			Basis: "fitted ranges of the NIST Shomate coefficients and Poling et al. (2001) polynomials in the component catalogue"}, true
+	}
+	return Warning{}, false
 }

@@ -7,25 +7,25 @@ import (
 	"stagewright/physics/stage"
 )
 
-// slipFrom returns the slip factor of the correlation in.SlipCorrelation
+// slipFrom returns the slip factor of the correlation in.SlipModel
 // for in.BladeCount blades; radiusRatio is the inlet shroud over tip
 // radius for Wiesner's correction (0: not known yet, no correction).
 func slipFrom(in ImpellerInput, radiusRatio float64) (float64, error) {
 	var sigma float64
 	var err error
-	switch in.SlipCorrelation {
+	switch in.SlipModel {
 	case "wiesner":
 		r := radiusRatio
 		if r <= 0 {
 			r = 1e-6 // below any limiting ratio: no correction
 		}
-		sigma, err = stage.WiesnerSlip(in.BladeCount, in.BladeExitAngle, math.Min(r, 0.999))
+		sigma, err = stage.WiesnerSlip(in.BladeCount, *in.BladeExitAngle, math.Min(r, 0.999))
 	case "stanitz":
-		sigma, err = stage.StanitzSlip(in.BladeCount, in.BladeExitAngle)
+		sigma, err = stage.StanitzSlip(in.BladeCount, *in.BladeExitAngle)
 	case "stodola":
-		sigma, err = stage.StodolaSlip(in.BladeCount, in.BladeExitAngle)
+		sigma, err = stage.StodolaSlip(in.BladeCount, *in.BladeExitAngle)
 	default:
-		return 0, shapeErr("impeller.slip_correlation", fmt.Errorf("unknown slip correlation %q: use wiesner, stanitz or stodola", in.SlipCorrelation))
+		return 0, shapeErr("impeller.slip_model", fmt.Errorf("unknown slip model %q: use wiesner, stanitz or stodola", in.SlipModel))
 	}
 	if err != nil {
 		return 0, fieldErr("impeller.blade_count", err)
@@ -34,32 +34,37 @@ func slipFrom(in ImpellerInput, radiusRatio float64) (float64, error) {
 }
 
 // refineSlip applies Wiesner's inlet-radius correction by fixed-point
-// iteration (σ sets D2, D2 sets r1/r2, r1/r2 sets σ) and records the
-// correlation in the provenance. Stanitz and Stodola need no iteration.
-func refineSlip(in ImpellerInput, d stage.Duty, imp stage.Impeller, inlet stage.Inlet, sz stage.Sizing, prov *Provenance) (stage.Sizing, stage.Impeller, error) {
+// iteration (σ sets D2, D2 sets r1/r2, r1/r2 sets σ). Stanitz and Stodola
+// need no iteration.
+func refineSlip(in ImpellerInput, d stage.Duty, imp stage.Impeller, inlet stage.Inlet, sz stage.Sizing) (stage.Sizing, stage.Impeller, error) {
+	if in.SlipModel != "wiesner" {
+		return sz, imp, nil
+	}
+	for range 30 {
+		sigma, err := slipFrom(in, sz.Coefficients.InletTipRatio)
+		if err != nil {
+			return sz, imp, err
+		}
+		if math.Abs(sigma-imp.SlipFactor) < 1e-9 {
+			break
+		}
+		imp.SlipFactor = sigma
+		sz, err = stage.Size(d, imp, inlet)
+		if err != nil {
+			return sz, imp, sizingError(err, "speed")
+		}
+	}
+	return sz, imp, nil
+}
+
+// slipMethod records the slip model used and its value.
+func slipMethod(in ImpellerInput, sigma float64) Method {
 	src := map[string]string{
 		"wiesner": "Wiesner, ASME J. Eng. Power 89:558 (1967), with its inlet-radius correction (form from memory)",
 		"stanitz": "Stanitz, Trans. ASME 74 (1952), in Dixon & Hall (2014) §7.9 (form from memory)",
 		"stodola": "Stodola (1927), in Dixon & Hall (2014) §7.9 (form from memory)",
-	}[in.SlipCorrelation]
-	if in.SlipCorrelation == "wiesner" {
-		for range 30 {
-			sigma, err := slipFrom(in, sz.Coefficients.InletTipRatio)
-			if err != nil {
-				return sz, imp, err
-			}
-			if math.Abs(sigma-imp.SlipFactor) < 1e-9 {
-				break
-			}
-			imp.SlipFactor = sigma
-			sz, err = stage.Size(d, imp, inlet)
-			if err != nil {
-				return sz, imp, sizingError(err)
-			}
-		}
-	}
-	prov.Methods = append(prov.Methods, Method{Subject: "slip factor",
-		Name:   fmt.Sprintf("%s correlation, %d blades: slip factor %.4f", in.SlipCorrelation, in.BladeCount, imp.SlipFactor),
-		Source: src})
-	return sz, imp, nil
+	}[in.SlipModel]
+	return Method{Subject: "slip factor",
+		Name:   fmt.Sprintf("%s slip model, %d blades: slip factor %.4f", in.SlipModel, in.BladeCount, sigma),
+		Source: src}
 }

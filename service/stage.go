@@ -1,13 +1,13 @@
 package service
 
 import (
-	"context"
 	"crypto/sha256"
 	"encoding/hex"
 	"encoding/json"
 	"errors"
 	"fmt"
 	"math"
+	"strconv"
 
 	"stagewright/physics"
 	"stagewright/physics/flowbasis"
@@ -19,7 +19,7 @@ import (
 
 // ModelVersion names the version of the physics behind every answer; it
 // changes whenever a result for the same input could change.
-const ModelVersion = "stagewright-physics 0.2.0"
+const ModelVersion = "stagewright-physics 0.3.0"
 
 // Defaults applied when a duty leaves a choice open.
 const (
@@ -40,10 +40,24 @@ const Cautions = "Preliminary engineering estimate from published methods, not a
 
 // Service runs the use cases. It holds no mutable state and is safe for
 // concurrent use.
-type Service struct{}
+type Service struct {
+	version string
+}
+
+// Option configures a Service.
+type Option func(*Service)
+
+// WithVersion names the build of the service (reported in provenance).
+func WithVersion(v string) Option { return func(s *Service) { s.version = v } }
 
 // New returns a Service.
-func New() *Service { return &Service{} }
+func New(opts ...Option) *Service {
+	s := &Service{version: "dev"}
+	for _, o := range opts {
+		o(s)
+	}
+	return s
+}
 
 // GasInput selects and parameterises the gas model.
 type GasInput struct {
@@ -65,30 +79,62 @@ type Interaction struct {
 
 // InletInput is the impeller inlet.
 type InletInput struct {
-	Type               string   `json:"type"`
-	DiameterRatio      *float64 `json:"diameter_ratio,omitempty"`
-	HubRatio           *float64 `json:"hub_ratio,omitempty"`
-	MeridionalVelocity float64  `json:"meridional_velocity"`
+	Type          string   `json:"type"`
+	DiameterRatio *float64 `json:"diameter_ratio,omitempty"`
+	HubRatio      *float64 `json:"hub_ratio,omitempty"`
+	// MeridionalVelocity is cm1, m/s: required for a radial inlet; for an
+	// axial eye give it, or EyeTipDiameter, or neither (then the eye is
+	// chosen for the least shroud relative Mach number).
+	MeridionalVelocity *float64 `json:"meridional_velocity,omitempty"`
+	// EyeTipDiameter is a given axial-eye tip diameter, m.
+	EyeTipDiameter *float64 `json:"eye_tip_diameter,omitempty"`
+	// PrewhirlAngle is the inlet-guide-vane flow angle at the eye, deg
+	// from axial, positive with rotation.
+	PrewhirlAngle *float64 `json:"prewhirl_angle,omitempty"`
 }
 
 // ImpellerInput is the blading.
 type ImpellerInput struct {
-	BladeExitAngle float64 `json:"blade_exit_angle"`
-	// SlipFactor is the slip factor given; nil when SlipCorrelation and
+	// BladeExitAngle is the backsweep from radial, deg; nil: DefaultBladeExitAngle.
+	BladeExitAngle *float64 `json:"blade_exit_angle,omitempty"`
+	// SlipFactor is the slip factor given; nil when SlipModel and
 	// BladeCount select a published correlation instead.
-	SlipFactor             *float64   `json:"slip_factor,omitempty"`
-	SlipCorrelation        string     `json:"slip_correlation,omitempty"`
-	BladeCount             int        `json:"blade_count,omitempty"`
-	PowerInputFactor       *float64   `json:"power_input_factor,omitempty"`
-	Inlet                  InletInput `json:"inlet"`
-	ExitMeridionalVelocity float64    `json:"exit_meridional_velocity"`
-	Construction           string     `json:"construction,omitempty"`
+	SlipFactor       *float64   `json:"slip_factor,omitempty"`
+	SlipModel        string     `json:"slip_model,omitempty"`
+	BladeCount       int        `json:"blade_count,omitempty"`
+	PowerInputFactor *float64   `json:"power_input_factor,omitempty"`
+	Inlet            InletInput `json:"inlet"`
+	// ExitMeridionalVelocity is cr2, m/s; nil: cr2 = DefaultExitFlowCoefficient × U2.
+	ExitMeridionalVelocity *float64 `json:"exit_meridional_velocity,omitempty"`
+	Construction           string   `json:"construction,omitempty"`
+	// ExitBlockage is the blocked fraction of the exit area (blades and
+	// boundary layers), 0 <= B < 0.5; default DefaultExitBlockage.
+	ExitBlockage *float64 `json:"exit_blockage,omitempty"`
+}
+
+// SpeedTarget chooses the speed when the duty gives none: one of a
+// specific speed Ns = Ω√Q01/Δh_s^0.75 or a flow coefficient
+// φ = Q01/(U2 π D2²/4).
+type SpeedTarget struct {
+	SpecificSpeed   *float64 `json:"specific_speed,omitempty"`
+	FlowCoefficient *float64 `json:"flow_coefficient,omitempty"`
+}
+
+// DriverInput is the driver: a rating margin over shaft power, or the
+// rating of an installed driver.
+type DriverInput struct {
+	// Margin is the least driver rating over shaft power; default 1.10.
+	Margin *float64 `json:"margin,omitempty"`
+	// Rating is an installed driver's rating, W; its margin is graded.
+	Rating *float64 `json:"rating,omitempty"`
 }
 
 // StageDuty is a duty in SI units (Pa absolute, K, kg/s, m3/s, rev/min,
-// m/s), as the API has parsed it. Exactly one of DischargePressure and
-// PressureRatio, of MassFlow and ActualVolumeFlow, and of
-// IsentropicEfficiency and PolytropicEfficiency is set.
+// m/s, m, W), as the API has parsed it. Exactly one of DischargePressure
+// and PressureRatio and of the flows is set; at most one of Speed,
+// TipDiameter and SpeedTarget (none: the default specific speed); at most
+// one of IsentropicEfficiency and PolytropicEfficiency (none: estimated
+// from a published correlation).
 type StageDuty struct {
 	Gas                GasInput `json:"gas"`
 	SuctionPressure    float64  `json:"suction_pressure"`
@@ -101,7 +147,10 @@ type StageDuty struct {
 	// StandardReference names the reference condition of
 	// StandardVolumeFlow: "normal", "standard" or "us-standard".
 	StandardReference    string        `json:"standard_reference,omitempty"`
-	Speed                float64       `json:"speed"`
+	Speed                *float64      `json:"speed,omitempty"`
+	TipDiameter          *float64      `json:"tip_diameter,omitempty"`
+	SpeedTarget          *SpeedTarget  `json:"speed_target,omitempty"`
+	SpeedStep            *float64      `json:"speed_step,omitempty"`
 	IsentropicEfficiency *float64      `json:"isentropic_efficiency,omitempty"`
 	PolytropicEfficiency *float64      `json:"polytropic_efficiency,omitempty"`
 	MechanicalEfficiency *float64      `json:"mechanical_efficiency,omitempty"`
@@ -109,12 +158,13 @@ type StageDuty struct {
 	Diffuser             string        `json:"diffuser,omitempty"`
 	PolytropicMethod     string        `json:"polytropic_method,omitempty"`
 	ImpellerLossShare    *float64      `json:"impeller_loss_share,omitempty"`
+	Driver               *DriverInput  `json:"driver,omitempty"`
+	// LimitOverrides replaces the levels of limit rules by rule ID.
+	LimitOverrides map[string]LevelOverride `json:"limit_overrides,omitempty"`
 }
 
 // Warning is a structured concern about a result.
 type Warning struct {
-	// Measured is false for a notice that carries no value and limit.
-	Measured bool
 	Code     string
 	Severity string
 	Message  string
@@ -122,7 +172,9 @@ type Warning struct {
 	Limit    float64
 	Margin   float64
 	Unit     string
-	Source   string
+	// Basis is where the levels come from: a standard, a paper, "common
+	// practice, no source" or a caller override.
+	Basis string
 }
 
 // Method is a method used, with its published source.
@@ -142,9 +194,11 @@ type Default struct {
 // Provenance says how a result was obtained.
 type Provenance struct {
 	ModelVersion string
-	GasModel     string
-	Methods      []Method
-	Defaults     []Default
+	// ServiceVersion is the build of the service that answered.
+	ServiceVersion string
+	GasModel       string
+	Methods        []Method
+	Defaults       []Default
 	// InputHash is the SHA-256 of the normalised duty (SI numbers, defaults
 	// not yet applied), hex.
 	InputHash string
@@ -205,135 +259,35 @@ type StageResult struct {
 	// severity of the limit checks.
 	Verdict    string
 	Provenance Provenance
-	Cautions   string
-}
-
-// SizeStage sizes one centrifugal stage for duty d.
-func (s *Service) SizeStage(ctx context.Context, d StageDuty) (StageResult, error) {
-	if err := ctx.Err(); err != nil {
-		return StageResult{}, err
-	}
-	var res StageResult
-	prov := &res.Provenance
-	prov.ModelVersion = ModelVersion
-	prov.InputHash = hashOf(d)
-
-	model, gasNotes, err := s.gasModel(d.Gas, d.SuctionTemperature, d.SuctionPressure)
-	if err != nil {
-		return StageResult{}, err
-	}
-	prov.GasModel = model.Name()
-	prov.Methods = append(prov.Methods, gasNotes.methods...)
-	res.Warnings = append(res.Warnings, gasNotes.warnings...)
-
-	suction, err := fullState(model, physics.Kelvin(d.SuctionTemperature), physics.Pascal(d.SuctionPressure))
-	if err != nil {
-		return StageResult{}, suctionError(err, d)
-	}
-	if suction.Phase == gas.PhaseLiquid || suction.Phase == gas.PhaseTwoPhase {
-		return StageResult{}, fieldErr("suction.temperature", reason("suction", fmt.Sprintf(
-			"the gas is %s at suction (%.2f K, %.0f Pa): a compressor needs a dry gas at suction; raise the suction temperature or remove the condensable components",
-			suction.Phase, d.SuctionTemperature, d.SuctionPressure), d.SuctionTemperature))
-	}
-
-	p2, err := dischargePressure(d)
-	if err != nil {
-		return StageResult{}, err
-	}
-	mdot, err := massFlow(d, model, suction, prov)
-	if err != nil {
-		return StageResult{}, err
-	}
-	eff, effField, err := efficiency(d)
-	if err != nil {
-		return StageResult{}, err
-	}
-	method := path.Stepwise
-	switch d.PolytropicMethod {
-	case "", "stepwise":
-		if d.PolytropicMethod == "" {
-			prov.Defaults = append(prov.Defaults, Default{Field: "options.polytropic_method", Value: "stepwise",
-				Note: "polytropic head from the path of constant small-stage efficiency integrated step by step"})
-		}
-	case "schultz":
-		method = path.Schultz
-	default:
-		return StageResult{}, shapeErr("options.polytropic_method", fmt.Errorf("unknown polytropic method %q: use stepwise or schultz", d.PolytropicMethod))
-	}
-	comp, err := path.Compression(model, suction, physics.Pascal(p2), eff, method)
-	if err != nil {
-		return StageResult{}, compressionError(err, effField, d)
-	}
-	res.Path = comp
-	prov.Methods = append(prov.Methods,
-		Method{Subject: "compression path", Name: "isentropic discharge by (P,s) flash; polytropic " + method.String(),
-			Source: "Schultz, ASME J. Eng. Power 84(1):69-82 (1962) and ASME PTC 10-1997 (Schultz); Huntington, ASME J. Eng. Gas Turbines Power 107:872 (1985) (stepwise path)"},
-	)
-
-	imp, err := s.impeller(d, prov)
-	if err != nil {
-		return StageResult{}, err
-	}
-	inlet, err := inletOf(d.Impeller.Inlet)
-	if err != nil {
-		return StageResult{}, err
-	}
-	share := stage.DefaultImpellerLossShare
-	if d.ImpellerLossShare != nil {
-		share = *d.ImpellerLossShare
-		if !(share >= 0 && share <= 1) {
-			return StageResult{}, fieldErr("options.impeller_loss_share", reason("impeller_loss_share",
-				"the impeller's share of the stage loss must lie between 0 and 1", share))
-		}
-	} else {
-		prov.Defaults = append(prov.Defaults, Default{Field: "options.impeller_loss_share", Value: "0.5",
-			Note: "half the stage loss is taken to arise in the impeller when the exit static state is found (Saravanamuttoo et al., Gas Turbine Theory, Example 4.1, from memory)"})
-	}
-	duty := stage.Duty{Model: model, Suction: suction, Work: comp.Work, IsentropicHead: comp.IsentropicHead,
-		PolytropicHead: comp.PolytropicHead, IsentropicEfficiency: comp.IsentropicEfficiency,
-		ImpellerLossShare: share, MassFlow: physics.KgPerS(mdot), Speed: physics.RevPerMin(d.Speed)}
-	if !(d.Speed > 0) || math.IsInf(d.Speed, 0) {
-		return StageResult{}, fieldErr("speed", reason("speed", "the rotational speed must be a positive number of rev/min", d.Speed))
-	}
-	sz, err := stage.Size(duty, imp, inlet)
-	if err != nil {
-		return StageResult{}, sizingError(err)
-	}
-	if d.Impeller.SlipFactor == nil {
-		sz, imp, err = refineSlip(d.Impeller, duty, imp, inlet, sz, prov)
-		if err != nil {
-			return StageResult{}, err
-		}
-	}
-	res.SlipFactor = imp.SlipFactor
-	res.Sizing = sz
-	prov.Methods = append(prov.Methods,
-		Method{Subject: "stage sizing", Name: "Euler work with slip and power input factor; continuity at station static densities",
-			Source: "Dixon & Hall, Fluid Mechanics and Thermodynamics of Turbomachinery, 7th ed. (2014), ch. 7; Saravanamuttoo et al., Gas Turbine Theory, 6th ed. (2009), ch. 4"})
-
-	res.MassFlow = mdot
-	res.SuctionVolumeFlow = sz.SuctionFlow
-	res.StandardFlows = standardFlows(model, mdot)
-	res.Speed = d.Speed
-	res.Power, err = power(d, mdot, float64(comp.Work), prov)
-	if err != nil {
-		return StageResult{}, err
-	}
-	prov.Methods = append(prov.Methods, Method{Subject: "driver rating", Name: "shaft power × 1.10", Source: limits.DriverMarginSource})
-
-	phaseWarnings, dew := checkPhases(model, []station{
-		{"suction", suction, false},
-		{"impeller inlet (static)", sz.Inlet.Static, true},
-		{"impeller exit (static)", sz.Exit.Static, true},
-		{"discharge", comp.Discharge, false},
-	})
-	res.Warnings = append(res.Warnings, phaseWarnings...)
-	res.WaterDewPoints = WaterDewPoints{Suction: dew[0], Inlet: dew[1], ImpellerExit: dew[2], Discharge: dew[3]}
-	if err := s.assess(d, &res); err != nil {
-		return StageResult{}, err
-	}
-	res.Cautions = Cautions
-	return res, nil
+	// Cautions are short sentences: what the numbers are, the protections
+	// the duty needs, the hazards of its gas; they defer to the
+	// manufacturer, the standards, local codes and licensed practice.
+	Cautions []string
+	// Speed says how the speed was found: "given", "tip-diameter",
+	// "specific-speed" or "flow-coefficient".
+	SpeedBasis string
+	// SpeedUnrounded is the chosen speed before rounding to SpeedStep
+	// (equal to Speed when no step was asked).
+	SpeedUnrounded float64
+	// EfficiencyEstimated is true when no efficiency was given and the
+	// polytropic efficiency came from the correlation.
+	EfficiencyEstimated bool
+	// EfficiencyInRange is false when the correlation was used outside its
+	// range.
+	EfficiencyInRange bool
+	// SpeedTarget is the specific speed or flow coefficient aimed at, or the
+	// tip diameter given (m); 0 for a given speed.
+	SpeedTarget float64
+	// PrewhirlAngle is the inlet guide-vane angle used, deg.
+	PrewhirlAngle float64
+	// ExitBlockage is the exit blockage fraction used.
+	ExitBlockage float64
+	// Impeller is the blading used (given or defaulted; the slip factor
+	// after any correlation).
+	Impeller stage.Impeller
+	// BladeCount is the blade count used by a slip model (0 with a given
+	// slip factor).
+	BladeCount int
 }
 
 func hashOf(d any) string {
@@ -411,16 +365,21 @@ func massFlow(d StageDuty, m gas.Model, suction gas.State, prov *Provenance) (fl
 	return float64(mdot), nil
 }
 
-func efficiency(d StageDuty) (path.Efficiency, string, error) {
+// efficiency returns the efficiency given, or, when none is given, a first
+// guess of the polytropic efficiency and estimate = true (the correlation
+// is then iterated with the sizing).
+func efficiency(d StageDuty, prov *Provenance) (eff path.Efficiency, field string, estimate bool, err error) {
 	switch {
 	case d.IsentropicEfficiency != nil && d.PolytropicEfficiency != nil:
-		return path.Efficiency{}, "efficiency", shapeErr("efficiency", errors.New("give efficiency.isentropic or efficiency.polytropic, not both"))
+		return path.Efficiency{}, "efficiency", false, shapeErr("efficiency", errors.New("give efficiency.isentropic or efficiency.polytropic, not both"))
 	case d.IsentropicEfficiency != nil:
-		return checkedEff(path.Isentropic, *d.IsentropicEfficiency, "efficiency.isentropic")
+		eff, field, err = checkedEff(path.Isentropic, *d.IsentropicEfficiency, "efficiency.isentropic")
+		return eff, field, false, err
 	case d.PolytropicEfficiency != nil:
-		return checkedEff(path.Polytropic, *d.PolytropicEfficiency, "efficiency.polytropic")
+		eff, field, err = checkedEff(path.Polytropic, *d.PolytropicEfficiency, "efficiency.polytropic")
+		return eff, field, false, err
 	}
-	return path.Efficiency{}, "efficiency", shapeErr("efficiency", errors.New("give efficiency.isentropic or efficiency.polytropic"))
+	return path.Efficiency{Basis: path.Polytropic, Value: 0.8}, "efficiency", true, nil
 }
 
 func checkedEff(b path.Basis, v float64, field string) (path.Efficiency, string, error) {
@@ -432,18 +391,21 @@ func checkedEff(b path.Basis, v float64, field string) (path.Efficiency, string,
 
 func (s *Service) impeller(d StageDuty, prov *Provenance) (stage.Impeller, error) {
 	in := d.Impeller
-	imp := stage.Impeller{BladeExitAngle: in.BladeExitAngle,
-		PowerInputFactor: DefaultPowerInputFactor, ExitMeridionalVelocity: physics.MeterPerS(in.ExitMeridionalVelocity)}
+	imp := stage.Impeller{BladeExitAngle: *in.BladeExitAngle, ExitBlockage: DefaultExitBlockage,
+		PowerInputFactor: DefaultPowerInputFactor, ExitMeridionalVelocity: 1}
+	if in.ExitMeridionalVelocity != nil {
+		imp.ExitMeridionalVelocity = physics.MeterPerS(*in.ExitMeridionalVelocity)
+	}
 	switch {
-	case in.SlipFactor != nil && (in.SlipCorrelation != "" || in.BladeCount != 0):
-		return imp, shapeErr("impeller.slip_correlation", errors.New("give slip_factor, or slip_correlation with blade_count, not both"))
+	case in.SlipFactor != nil && (in.SlipModel != "" || in.BladeCount != 0):
+		return imp, shapeErr("impeller.slip_model", errors.New("give slip_factor, or slip_model with blade_count, not both"))
 	case in.SlipFactor != nil:
 		imp.SlipFactor = *in.SlipFactor
-	case in.SlipCorrelation == "":
-		return imp, shapeErr("impeller.slip_factor", errors.New("slip_factor is required, unless slip_correlation (wiesner, stanitz or stodola) and blade_count are given"))
+	case in.SlipModel == "":
+		return imp, shapeErr("impeller.slip_factor", errors.New("slip_factor is required, unless slip_model (wiesner, stanitz or stodola) and blade_count are given"))
 	default:
 		if in.BladeCount == 0 {
-			return imp, shapeErr("impeller.blade_count", fmt.Errorf("slip correlation %s needs blade_count, the number of blades at the impeller exit", in.SlipCorrelation))
+			return imp, shapeErr("impeller.blade_count", fmt.Errorf("slip model %s needs blade_count, the number of blades at the impeller exit", in.SlipModel))
 		}
 		// First estimate; Wiesner's inlet-radius correction is applied
 		// once the inlet diameter is known (refineSlip).
@@ -452,6 +414,16 @@ func (s *Service) impeller(d StageDuty, prov *Provenance) (stage.Impeller, error
 			return imp, err
 		}
 		imp.SlipFactor = sigma
+	}
+	if in.ExitBlockage != nil {
+		imp.ExitBlockage = *in.ExitBlockage
+		if !(imp.ExitBlockage >= 0 && imp.ExitBlockage < 0.5) {
+			return imp, fieldErr("impeller.exit_blockage", reason("exit_blockage",
+				"the exit blockage is the blocked fraction of the exit area: at least 0 and below 0.5", imp.ExitBlockage))
+		}
+	} else {
+		prov.Defaults = append(prov.Defaults, Default{Field: "impeller.exit_blockage", Value: strconv.FormatFloat(DefaultExitBlockage, 'f', -1, 64),
+			Note: "blade and boundary-layer blockage of the exit area (common practice, no source)"})
 	}
 	if in.PowerInputFactor != nil {
 		imp.PowerInputFactor = *in.PowerInputFactor
@@ -477,16 +449,34 @@ func (s *Service) impeller(d StageDuty, prov *Provenance) (stage.Impeller, error
 	return imp, nil
 }
 
-func inletOf(in InletInput) (stage.Inlet, error) {
-	out := stage.Inlet{Kind: stage.InletKind(in.Type), MeridionalVelocity: physics.MeterPerS(in.MeridionalVelocity)}
-	if !(in.MeridionalVelocity > 0) || math.IsInf(in.MeridionalVelocity, 0) {
-		return out, fieldErr("impeller.inlet.meridional_velocity", reason("meridional_velocity",
-			"the inlet meridional velocity must be a positive number of m/s", in.MeridionalVelocity))
+func inletOf(in InletInput, prov *Provenance) (stage.Inlet, error) {
+	out := stage.Inlet{Kind: stage.InletKind(in.Type)}
+	if in.MeridionalVelocity != nil {
+		out.MeridionalVelocity = physics.MeterPerS(*in.MeridionalVelocity)
+		if !(*in.MeridionalVelocity > 0) || math.IsInf(*in.MeridionalVelocity, 0) {
+			return out, fieldErr("impeller.inlet.meridional_velocity", reason("meridional_velocity",
+				"the inlet meridional velocity must be a positive number of m/s", *in.MeridionalVelocity))
+		}
+	}
+	if in.PrewhirlAngle != nil {
+		out.PrewhirlAngle = *in.PrewhirlAngle
+		if out.Kind != stage.InletAxialEye {
+			return out, shapeErr("impeller.inlet.prewhirl_angle", errors.New("inlet guide-vane prewhirl is modelled for an axial eye only"))
+		}
+		if !(out.PrewhirlAngle >= -30 && out.PrewhirlAngle <= 60) {
+			return out, fieldErr("impeller.inlet.prewhirl_angle", reason("prewhirl_angle",
+				"the prewhirl angle is the inlet guide-vane flow angle from axial in degrees, positive with rotation: between -30 and 60", out.PrewhirlAngle))
+		}
 	}
 	switch out.Kind {
 	case stage.InletRadial:
-		if in.DiameterRatio == nil {
+		switch {
+		case in.DiameterRatio == nil:
 			return out, shapeErr("impeller.inlet.diameter_ratio", errors.New("a radial inlet needs diameter_ratio (D1/D2)"))
+		case in.MeridionalVelocity == nil:
+			return out, shapeErr("impeller.inlet.meridional_velocity", errors.New("a radial inlet needs meridional_velocity, the velocity entering the blades"))
+		case in.EyeTipDiameter != nil:
+			return out, shapeErr("impeller.inlet.eye_tip_diameter", errors.New("eye_tip_diameter belongs to an axial-eye inlet"))
 		}
 		out.DiameterRatio = *in.DiameterRatio
 		if !(out.DiameterRatio > 0 && out.DiameterRatio < 1) {
@@ -501,6 +491,20 @@ func inletOf(in InletInput) (stage.Inlet, error) {
 		if !(out.HubRatio >= 0 && out.HubRatio < 0.95) {
 			return out, fieldErr("impeller.inlet.hub_ratio", reason("hub_ratio",
 				"the eye hub ratio (hub over eye tip diameter) must lie in [0, 0.95)", out.HubRatio))
+		}
+		if in.EyeTipDiameter != nil {
+			if in.MeridionalVelocity != nil {
+				return out, shapeErr("impeller.inlet.eye_tip_diameter", errors.New("give eye_tip_diameter or meridional_velocity, not both: either sets the other by continuity"))
+			}
+			out.EyeTipDiameter = physics.Meter(*in.EyeTipDiameter)
+			if !(*in.EyeTipDiameter > 0 && *in.EyeTipDiameter < float64(stage.MaxTipDiameter)) {
+				return out, fieldErr("impeller.inlet.eye_tip_diameter", reason("eye_tip_diameter",
+					"the eye tip diameter must be a positive number of metres, below the largest impeller the sizing covers", *in.EyeTipDiameter))
+			}
+		}
+		if in.EyeTipDiameter == nil && in.MeridionalVelocity == nil {
+			prov.Defaults = append(prov.Defaults, Default{Field: "impeller.inlet.eye_tip_diameter", Value: "least shroud relative Mach number",
+				Note: "neither eye_tip_diameter nor meridional_velocity given: the eye is chosen for the least relative Mach number at the eye tip"})
 		}
 	default:
 		return out, shapeErr("impeller.inlet.type", fmt.Errorf("unknown inlet type %q: use radial or axial-eye", in.Type))
@@ -522,7 +526,34 @@ func power(d StageDuty, mdot, work float64, prov *Provenance) (Power, error) {
 	}
 	g := mdot * work
 	shaft := g / eta
-	return Power{Gas: g, Shaft: shaft, MechanicalEfficiency: eta, DriverRating: shaft * limits.DriverMargin, DriverMargin: limits.DriverMargin}, nil
+	out := Power{Gas: g, Shaft: shaft, MechanicalEfficiency: eta}
+	var dr DriverInput
+	if d.Driver != nil {
+		dr = *d.Driver
+	}
+	switch {
+	case dr.Margin != nil && dr.Rating != nil:
+		return Power{}, shapeErr("driver.rating", errors.New("give driver.margin or driver.rating, not both: the rating of an installed driver fixes its margin"))
+	case dr.Rating != nil:
+		r := *dr.Rating
+		if !(r > 0) || math.IsInf(r, 0) {
+			return Power{}, fieldErr("driver.rating", reason("rating", "the driver rating must be a positive number of W", r))
+		}
+		out.DriverRating, out.DriverMargin = r, r/shaft
+		prov.Methods = append(prov.Methods, Method{Subject: "driver rating", Name: "installed driver rating given; its margin over shaft power is graded", Source: limits.DriverMarginSource})
+	case dr.Margin != nil:
+		m := *dr.Margin
+		if !(m >= 1 && m <= 3) {
+			return Power{}, fieldErr("driver.margin", reason("margin", "the driver margin is the rating over shaft power: at least 1, at most 3", m))
+		}
+		out.DriverRating, out.DriverMargin = shaft*m, m
+		prov.Methods = append(prov.Methods, Method{Subject: "driver rating", Name: "shaft power × the margin given", Source: limits.DriverMarginSource})
+	default:
+		out.DriverRating, out.DriverMargin = shaft*limits.DriverMargin, limits.DriverMargin
+		prov.Defaults = append(prov.Defaults, Default{Field: "driver.margin", Value: "1.1", Note: limits.DriverMarginSource})
+		prov.Methods = append(prov.Methods, Method{Subject: "driver rating", Name: "shaft power × 1.10", Source: limits.DriverMarginSource})
+	}
+	return out, nil
 }
 
 // suctionError names the suction field a model error belongs to.
@@ -553,14 +584,18 @@ func compressionError(err error, effField string, d StageDuty) error {
 	return fieldErr("discharge_pressure", fmt.Errorf("compression path: %w", err))
 }
 
-// sizingError names the field a stage-sizing error belongs to.
-func sizingError(err error) error {
+// sizingError names the field a stage-sizing error belongs to; speedField
+// is the input that set the speed (speed, tip_diameter or a speed target).
+func sizingError(err error, speedField string) error {
 	var de *physics.DomainError
 	if !errors.As(err, &de) {
 		return err
 	}
 	field := map[string]string{
-		"speed":                     "speed",
+		"speed":                     speedField,
+		"exit_blockage":             "impeller.exit_blockage",
+		"inlet.eye_tip_diameter":    "impeller.inlet.eye_tip_diameter",
+		"inlet.prewhirl_angle":      "impeller.inlet.prewhirl_angle",
 		"slip_factor":               "impeller.slip_factor",
 		"power_input_factor":        "impeller.power_input_factor",
 		"blade_exit_angle":          "impeller.blade_exit_angle",

@@ -364,3 +364,13 @@ func (m Real) GasStateFromPS(p physics.Pascal, s physics.JoulePerKgK) (State, er
 	return TemperatureSolve(func(t physics.Kelvin) (State, error) { return m.GasState(t, p) }, float64(s),
 		stateEntropy, stateCpOverT, physics.Kelvin(m.tLo), physics.Kelvin(m.tHi))
 }
+
+// DewTemperature returns the (upper) dew-point temperature of the gas at
+// pressure p: the temperature below which a liquid phase forms. It is
+// cubic.Mixture.DewTemperature on the model's composition (Michelsen,
+// Fluid Phase Equilib. 9:1-19, 1982; Michelsen & Mollerup 2007, ch. 12),
+// with the same range: an error above the cricondenbar, where there is no
+// dew point.
+func (m Real) DewTemperature(p physics.Pascal) (physics.Kelvin, error) {
+	return m.eos.DewTemperature(m.x, p)
+}

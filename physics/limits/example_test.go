@@ -22,8 +22,8 @@ func ExampleRule_Check() {
 	fmt.Printf("%s, margin %.3f\n", a.Severity, a.Margin)
 	fmt.Println(a.Message())
 	// Output:
-	// caution, margin -0.067
-	// impeller tip speed (closed-steel) 320 m/s exceeds the caution limit of 300 m/s
+	// warning, margin -0.067
+	// impeller tip speed (closed-steel) 320 m/s exceeds the warning level of 300 m/s
 }
 
 func ExampleDischargeTemperature() {
@@ -32,6 +32,6 @@ func ExampleDischargeTemperature() {
 		fmt.Println(err)
 		return
 	}
-	fmt.Printf("caution %.2f K, critical %.2f K\n", r.Caution, r.Critical)
-	// Output: caution 473.15 K, critical 503.15 K
+	fmt.Printf("warning %.2f K, limit %.2f K\n", r.Warning, r.Limit)
+	// Output: warning 473.15 K, limit 503.15 K
 }

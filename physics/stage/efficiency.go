@@ -53,8 +53,7 @@ const (
 // Source: M. V. Casey and C. J. Robinson, "A method to estimate the
 // performance map of a centrifugal compressor stage", ASME J.
 // Turbomachinery 135(2):021034 (2013). The form and every coefficient are
-// from memory; they agree with a public third-party implementation of that
-// paper, but were not checked against the paper itself. The Reynolds-number
+// from memory and were not checked against the paper itself. The Reynolds-number
 // and roughness corrections of the paper (η_max depends on them) are not
 // included: η_max = 0.86 stands for a large industrial stage.
 //
