@@ -211,3 +211,32 @@ func warning(res service.StageResult, code string) *service.Warning {
 	}
 	return nil
 }
+
+// BenchmarkSizeStageChosenIdealConstant is issue 4's benchmark: the whole
+// use case with every choice made by the service (speed for Ns 0.7,
+// Casey & Robinson efficiency iterated with the sizing, Wiesner slip, the
+// least-shroud-Mach eye, default cr2/U2) for a constant-property gas.
+func BenchmarkSizeStageChosenIdealConstant(b *testing.B) {
+	svc := service.New()
+	d := service.StageDuty{Gas: textbookAir(), SuctionPressure: 1e5, SuctionTemperature: 300,
+		PressureRatio: f(2.5), MassFlow: f(3)}
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := svc.SizeStage(context.Background(), d); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// BenchmarkSizeStageChosenRealGas is the same for the Peng-Robinson
+// hydrogen-rich demo duty.
+func BenchmarkSizeStageChosenRealGas(b *testing.B) {
+	svc := service.New()
+	d := hydrogenRecycle()
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := svc.SizeStage(context.Background(), d); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

@@ -20,14 +20,6 @@ import (
 // the circumference of a typical process impeller).
 const DefaultExitBlockage = 0.10
 
-// Iteration bounds of the choices the service makes.
-const (
-	maxSpeedIterations      = 40
-	maxEfficiencyIterations = 40
-	speedTolerance          = 1e-10 // relative, on D2 or φ
-	efficiencyTolerance     = 1e-7  // absolute, on ηp
-)
-
 // SizeStage sizes one centrifugal stage for duty d: the gas model and
 // suction state, the compression path, the speed (given, or chosen for a
 // tip diameter, a specific speed or a flow coefficient), the efficiency
@@ -95,47 +87,13 @@ func (s *Service) SizeStage(ctx context.Context, d StageDuty) (StageResult, erro
 		return StageResult{}, err
 	}
 
-	// The efficiency estimate depends on the flow coefficient and tip Mach
-	// number, which depend on the work the efficiency sets: iterate to a
-	// fixed point (a given efficiency needs one pass).
-	var comp path.Result
-	var sz stage.Sizing
-	var n physics.RevPerMin
-	var est stage.EfficiencyEstimate
-	converged := false
-	for range maxEfficiencyIterations {
-		if err := ctx.Err(); err != nil {
-			return StageResult{}, err
-		}
-		comp, err = path.Compression(model, suction, physics.Pascal(p2), eff, method)
-		if err != nil {
-			return StageResult{}, compressionError(err, effField, d)
-		}
-		duty := stage.Duty{Model: model, Suction: suction, Work: comp.Work, IsentropicHead: comp.IsentropicHead,
-			PolytropicHead: comp.PolytropicHead, IsentropicEfficiency: comp.IsentropicEfficiency,
-			ImpellerLossShare: share, MassFlow: physics.KgPerS(mdot)}
-		n, sz, imp, err = plan.size(d, duty, imp, inlet, &res)
-		if err != nil {
-			return StageResult{}, err
-		}
-		if !estimate {
-			converged = true
-			break
-		}
-		est, err = stage.PolytropicEfficiencyEstimate(sz.Coefficients.FlowCoefficient, sz.Velocities.MachineMach)
-		if err != nil {
-			return StageResult{}, fieldErr("efficiency", fmt.Errorf("efficiency estimate: %w", err))
-		}
-		if math.Abs(est.Value-eff.Value) < efficiencyTolerance {
-			converged = true
-			break
-		}
-		eff.Value = est.Value
+	sv := &solver{d: d, model: model, suction: suction, p2: physics.Pascal(p2), mdot: physics.KgPerS(mdot), method: method,
+		share: share, imp: imp, inlet: inlet, plan: plan, estimate: estimate, eff: eff, effField: effField}
+	n, comp, sz, err := sv.run(ctx, &res)
+	if err != nil {
+		return StageResult{}, err
 	}
-	if !converged {
-		return StageResult{}, fieldErr("efficiency", reason("efficiency",
-			"the efficiency estimate did not settle with the sizing for this duty; give efficiency.polytropic or efficiency.isentropic", eff.Value))
-	}
+	imp, eff, est := sv.imp, sv.eff, sv.est
 	res.Path = comp
 	res.Sizing = sz
 	res.SlipFactor = imp.SlipFactor
@@ -294,116 +252,230 @@ func speedPlanOf(d StageDuty, prov *Provenance) (speedPlan, error) {
 	return p, nil
 }
 
-// size finds the speed of plan p and sizes the stage at it (with
-// Wiesner's inlet-radius slip correction when a slip model is used).
-func (p speedPlan) size(d StageDuty, duty stage.Duty, imp stage.Impeller, inlet stage.Inlet, res *StageResult) (physics.RevPerMin, stage.Sizing, stage.Impeller, error) {
-	field := map[string]string{"given": "speed", "tip-diameter": "tip_diameter",
-		"specific-speed": "speed_target.specific_speed", "flow-coefficient": "speed_target.flow_coefficient"}[p.basis]
-	if p.basis == "specific-speed" && d.SpeedTarget == nil {
-		field = "speed"
-	}
-	at := func(n physics.RevPerMin) (stage.Sizing, error) {
-		duty.Speed = n
-		var sz stage.Sizing
-		// With the default exit flow coefficient, cr2 follows U2, which
-		// follows the slip factor: iterate until the slip factor settles.
-		for range 20 {
-			sigma := imp.SlipFactor
-			if d.Impeller.ExitMeridionalVelocity == nil {
-				cr2, ok := exitVelocityFor(duty.Work, imp)
-				if !ok {
-					return sz, fieldErr("impeller.blade_exit_angle", reason("blade_exit_angle",
-						"the blades are swept back too far for the default exit flow coefficient cr2/U2 = 0.25: give impeller.exit_meridional_velocity or less backsweep", imp.BladeExitAngle))
-				}
-				imp.ExitMeridionalVelocity = cr2
-			}
-			var err error
-			sz, err = stage.Size(duty, imp, inlet)
-			if err != nil {
-				return sz, sizingError(err, field)
-			}
-			if d.Impeller.SlipFactor == nil {
-				sz, imp, err = refineSlip(d.Impeller, duty, imp, inlet, sz)
-				if err != nil {
-					return sz, err
-				}
-			}
-			if d.Impeller.ExitMeridionalVelocity != nil || math.Abs(imp.SlipFactor-sigma) < 1e-10 {
-				break
-			}
-		}
-		return sz, nil
-	}
-	var n physics.RevPerMin
-	var err error
-	switch p.basis {
-	case "given":
-		n = physics.RevPerMin(p.value)
-	case "specific-speed":
-		q := physics.CubicMeterPerS(float64(duty.MassFlow) / float64(duty.Suction.Density))
-		n, err = stage.SpeedForSpecificSpeed(p.value, q, duty.IsentropicHead)
-		if err != nil {
-			return 0, stage.Sizing{}, imp, fieldErr(field, err)
-		}
-	default:
-		n, err = p.iterate(duty, imp, at, field)
-		if err != nil {
-			return 0, stage.Sizing{}, imp, err
-		}
-	}
-	res.SpeedBasis = p.basis
-	res.SpeedUnrounded = float64(n)
-	if p.basis != "given" {
-		res.SpeedTarget = p.value
-	}
-	if p.step > 0 {
-		n, err = stage.RoundSpeed(n, physics.RevPerMin(p.step))
-		if err != nil {
-			return 0, stage.Sizing{}, imp, fieldErr("speed_step", err)
-		}
-	}
-	sz, err := at(n)
-	if err != nil {
-		return 0, stage.Sizing{}, imp, err
-	}
-	return n, sz, imp, nil
+// solver finds the speed, the slip factor, the exit meridional velocity
+// and the efficiency together: each depends on the sized stage (the speed
+// of a tip-diameter or flow-coefficient target on the tip speed, Wiesner's
+// slip factor on the inlet radius ratio, the default cr2 on the tip speed,
+// the estimated efficiency on the flow coefficient and tip Mach number), so
+// they are updated together by fixed-point iteration until none moves.
+type solver struct {
+	d        StageDuty
+	model    gas.Model
+	suction  gas.State
+	p2       physics.Pascal
+	mdot     physics.KgPerS
+	method   path.Method
+	share    float64
+	imp      stage.Impeller
+	inlet    stage.Inlet
+	plan     speedPlan
+	estimate bool
+	eff      path.Efficiency
+	effField string
+	est      stage.EfficiencyEstimate
+
+	// The least-shroud-Mach eye depends only on the speed (the suction
+	// state, flow, hub ratio and prewhirl are fixed), so it is found once
+	// per speed and then passed as a given eye.
+	eyeSpeed physics.RevPerMin
+	eyeTip   physics.Meter
 }
 
-// iterate finds the speed giving the target tip diameter or flow
-// coefficient: the tip speed the work needs varies a little with speed
-// (slip correction, prewhirl at the eye), so N is corrected by fixed-point
-// iteration on D2 = 60 U2/(π N).
-func (p speedPlan) iterate(duty stage.Duty, imp stage.Impeller, at func(physics.RevPerMin) (stage.Sizing, error), field string) (physics.RevPerMin, error) {
-	q := physics.CubicMeterPerS(float64(duty.MassFlow) / float64(duty.Suction.Density))
-	u2, err := stage.TipSpeed(duty.Work, imp.SlipFactor, imp.PowerInputFactor, imp.BladeExitAngle, imp.ExitMeridionalVelocity)
+// Convergence of the joint iteration.
+const (
+	maxSolverIterations = 60
+	solverTolerance     = 1e-10 // relative on speed, absolute on the slip factor
+	efficiencyTolerance = 1e-9  // absolute on ηp
+)
+
+func (sv *solver) field() string {
+	switch sv.plan.basis {
+	case "tip-diameter":
+		return "tip_diameter"
+	case "flow-coefficient":
+		return "speed_target.flow_coefficient"
+	case "specific-speed":
+		if sv.d.SpeedTarget != nil {
+			return "speed_target.specific_speed"
+		}
+	}
+	return "speed"
+}
+
+func (sv *solver) compression() (path.Result, error) {
+	comp, err := path.Compression(sv.model, sv.suction, sv.p2, sv.eff, sv.method)
 	if err != nil {
-		return 0, sizingError(err, field)
+		return path.Result{}, compressionError(err, sv.effField, sv.d)
 	}
-	target := func(u2 physics.MeterPerS) (physics.Meter, error) {
-		if p.basis == "tip-diameter" {
-			return physics.Meter(p.value), nil
+	return comp, nil
+}
+
+func (sv *solver) duty(comp path.Result, n physics.RevPerMin) stage.Duty {
+	return stage.Duty{Model: sv.model, Suction: sv.suction, Work: comp.Work, IsentropicHead: comp.IsentropicHead,
+		PolytropicHead: comp.PolytropicHead, IsentropicEfficiency: comp.IsentropicEfficiency,
+		ImpellerLossShare: sv.share, MassFlow: sv.mdot, Speed: n}
+}
+
+// size sizes the stage at speed n with the current blading, reusing the
+// optimum eye found at the same speed.
+func (sv *solver) size(comp path.Result, n physics.RevPerMin) (stage.Sizing, error) {
+	in := sv.inlet
+	cached := in.Kind == stage.InletAxialEye && in.EyeTipDiameter == 0 && in.MeridionalVelocity == 0 && sv.eyeTip > 0 && sv.eyeSpeed == n
+	if cached {
+		in.EyeTipDiameter = sv.eyeTip
+	}
+	sz, err := stage.Size(sv.duty(comp, n), sv.imp, in)
+	if err != nil {
+		return sz, sizingError(err, sv.field())
+	}
+	switch {
+	case cached:
+		sz.Geometry.EyeChoice = stage.EyeMinShroudMach
+	case sz.Geometry.EyeChoice == stage.EyeMinShroudMach:
+		sv.eyeSpeed, sv.eyeTip = n, sz.Geometry.InletDiameter
+	}
+	return sz, nil
+}
+
+// run iterates to the joint fixed point and records the speed choice.
+func (sv *solver) run(ctx context.Context, res *StageResult) (physics.RevPerMin, path.Result, stage.Sizing, error) {
+	comp, err := sv.compression()
+	if err != nil {
+		return 0, comp, stage.Sizing{}, err
+	}
+	q := physics.CubicMeterPerS(float64(sv.mdot) / float64(sv.suction.Density))
+	field := sv.field()
+	var n physics.RevPerMin
+	fixed := true
+	switch sv.plan.basis {
+	case "given":
+		n = physics.RevPerMin(sv.plan.value)
+	case "specific-speed": // Δh_s does not depend on the efficiency
+		if n, err = stage.SpeedForSpecificSpeed(sv.plan.value, q, comp.IsentropicHead); err != nil {
+			return 0, comp, stage.Sizing{}, fieldErr(field, err)
 		}
-		return stage.TipDiameterForFlowCoefficient(p.value, q, u2)
+	default:
+		fixed = false
+		if n, err = sv.targetSpeed(q, comp, 0); err != nil {
+			return 0, comp, stage.Sizing{}, err
+		}
 	}
-	for range maxSpeedIterations {
-		d2, err := target(u2)
+	unrounded, rounded := n, false
+	// The efficiency is updated by the secant method on f(η) = estimate(η) − η
+	// once two points are known (plain substitution converges only
+	// linearly, at about a tenth per step).
+	var prevEta, prevF float64
+	havePrev := false
+	for range maxSolverIterations {
+		if err := ctx.Err(); err != nil {
+			return 0, comp, stage.Sizing{}, err
+		}
+		if sv.d.Impeller.ExitMeridionalVelocity == nil {
+			cr2, ok := exitVelocityFor(comp.Work, sv.imp)
+			if !ok {
+				return 0, comp, stage.Sizing{}, fieldErr("impeller.blade_exit_angle", reason("blade_exit_angle",
+					"the blades are swept back too far for the default exit flow coefficient cr2/U2 = 0.25: give impeller.exit_meridional_velocity or less backsweep", sv.imp.BladeExitAngle))
+			}
+			sv.imp.ExitMeridionalVelocity = cr2
+		}
+		sz, err := sv.size(comp, n)
 		if err != nil {
+			return 0, comp, sz, err
+		}
+		moved := false
+		if sv.d.Impeller.SlipFactor == nil {
+			sigma, err := slipFrom(sv.d.Impeller, sz.Coefficients.InletTipRatio)
+			if err != nil {
+				return 0, comp, sz, err
+			}
+			if math.Abs(sigma-sv.imp.SlipFactor) > solverTolerance {
+				sv.imp.SlipFactor, moved = sigma, true
+			}
+		}
+		if !fixed && !rounded {
+			next, err := sv.targetSpeed(q, comp, sz.Velocities.TipSpeed)
+			if err != nil {
+				return 0, comp, sz, err
+			}
+			if math.Abs(float64(next/n)-1) > solverTolerance {
+				n, moved = next, true
+			}
+			unrounded = n
+		}
+		if sv.estimate {
+			sv.est, err = stage.PolytropicEfficiencyEstimate(sz.Coefficients.FlowCoefficient, sz.Velocities.MachineMach)
+			if err != nil {
+				return 0, comp, sz, fieldErr("efficiency", fmt.Errorf("efficiency estimate: %w", err))
+			}
+			if f := sv.est.Value - sv.eff.Value; math.Abs(f) > efficiencyTolerance {
+				next := sv.est.Value
+				if havePrev && f != prevF {
+					if s := sv.eff.Value - f*(sv.eff.Value-prevEta)/(f-prevF); s > 0.2 && s < 1 {
+						next = s
+					}
+				}
+				prevEta, prevF, havePrev = sv.eff.Value, f, true
+				sv.eff.Value, moved = next, true
+				if comp, err = sv.compression(); err != nil {
+					return 0, comp, sz, err
+				}
+			}
+		}
+		if moved {
+			continue
+		}
+		if sv.plan.step > 0 && !rounded {
+			unrounded, rounded = n, true
+			if n, err = stage.RoundSpeed(n, physics.RevPerMin(sv.plan.step)); err != nil {
+				return 0, comp, sz, fieldErr("speed_step", err)
+			}
+			continue
+		}
+		res.SpeedBasis = sv.plan.basis
+		res.SpeedUnrounded = float64(unrounded)
+		if sv.plan.basis != "given" {
+			res.SpeedTarget = sv.plan.value
+		}
+		return n, comp, sz, nil
+	}
+	if sv.estimate {
+		return 0, comp, stage.Sizing{}, fieldErr("efficiency", reason("efficiency",
+			"the efficiency estimate did not settle with the sizing for this duty; give efficiency.polytropic or efficiency.isentropic", sv.eff.Value))
+	}
+	return 0, comp, stage.Sizing{}, fieldErr(field, reason(field, "the speed, slip factor and exit velocity did not settle for this duty; give the speed and the slip factor", sv.plan.value))
+}
+
+// targetSpeed is the speed at which the tip speed u2 gives the target tip
+// diameter or flow coefficient; u2 = 0 asks for a first estimate from the
+// Euler work without the inlet terms.
+func (sv *solver) targetSpeed(q physics.CubicMeterPerS, comp path.Result, u2 physics.MeterPerS) (physics.RevPerMin, error) {
+	field := sv.field()
+	if u2 == 0 {
+		cr2 := sv.imp.ExitMeridionalVelocity
+		if sv.d.Impeller.ExitMeridionalVelocity == nil {
+			var ok bool
+			if cr2, ok = exitVelocityFor(comp.Work, sv.imp); !ok {
+				cr2 = 1
+			}
+		}
+		var err error
+		u2, err = stage.TipSpeed(comp.Work, sv.imp.SlipFactor, sv.imp.PowerInputFactor, sv.imp.BladeExitAngle, cr2)
+		if err != nil {
+			return 0, sizingError(err, field)
+		}
+	}
+	d2 := physics.Meter(sv.plan.value)
+	if sv.plan.basis == "flow-coefficient" {
+		var err error
+		if d2, err = stage.TipDiameterForFlowCoefficient(sv.plan.value, q, u2); err != nil {
 			return 0, fieldErr(field, err)
 		}
-		n, err := stage.SpeedForTipDiameter(u2, d2)
-		if err != nil {
-			return 0, fieldErr(field, err)
-		}
-		sz, err := at(n)
-		if err != nil {
-			return 0, err
-		}
-		if math.Abs(float64(sz.Geometry.TipDiameter)/float64(d2)-1) < speedTolerance {
-			return n, nil
-		}
-		u2 = sz.Velocities.TipSpeed
 	}
-	return 0, fieldErr(field, reason(field, "the speed for this target did not settle; give the speed instead", p.value))
+	n, err := stage.SpeedForTipDiameter(u2, d2)
+	if err != nil {
+		return 0, fieldErr(field, err)
+	}
+	return n, nil
 }
 
 // efficiencyRangeWarning reports the correlation used outside its range,

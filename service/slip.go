@@ -33,30 +33,6 @@ func slipFrom(in ImpellerInput, radiusRatio float64) (float64, error) {
 	return sigma, nil
 }
 
-// refineSlip applies Wiesner's inlet-radius correction by fixed-point
-// iteration (σ sets D2, D2 sets r1/r2, r1/r2 sets σ). Stanitz and Stodola
-// need no iteration.
-func refineSlip(in ImpellerInput, d stage.Duty, imp stage.Impeller, inlet stage.Inlet, sz stage.Sizing) (stage.Sizing, stage.Impeller, error) {
-	if in.SlipModel != "wiesner" {
-		return sz, imp, nil
-	}
-	for range 30 {
-		sigma, err := slipFrom(in, sz.Coefficients.InletTipRatio)
-		if err != nil {
-			return sz, imp, err
-		}
-		if math.Abs(sigma-imp.SlipFactor) < 1e-9 {
-			break
-		}
-		imp.SlipFactor = sigma
-		sz, err = stage.Size(d, imp, inlet)
-		if err != nil {
-			return sz, imp, sizingError(err, "speed")
-		}
-	}
-	return sz, imp, nil
-}
-
 // slipMethod records the slip model used and its value.
 func slipMethod(in ImpellerInput, sigma float64) Method {
 	src := map[string]string{

@@ -98,16 +98,43 @@ func (f *eyeFlow) choke() (cm, flux float64, ok bool) {
 		return cm, rho * cm, ok
 	}
 	// c1 = 0 is subsonic; c1 = a01 is supersonic (the static sound speed
-	// falls with the static temperature) or has no static state.
+	// falls with the static temperature) or has no static state. The sonic
+	// point is the root of g(cm) = c1 − a1, found by regula falsi with the
+	// Illinois modification (bisection where the state does not exist).
 	lo, hi := 0.0, f.a0*f.cosAlpha
-	for range 60 {
-		mid := 0.5 * (lo + hi)
-		if _, a, ok := f.static(mid); !ok || mid/f.cosAlpha >= a {
-			hi = mid
+	glo, ghi := -f.a0, math.NaN() // NaN: no static state at hi (yet)
+	if _, a, ok := f.static(hi); ok {
+		ghi = hi/f.cosAlpha - a
+	}
+	side := 0
+	for range 200 {
+		var mid float64
+		if math.IsNaN(ghi) || !(ghi > 0) {
+			mid = 0.5 * (lo + hi)
 		} else {
-			lo = mid
+			mid = (lo*ghi - hi*glo) / (ghi - glo)
+			if !(mid > lo && mid < hi) {
+				mid = 0.5 * (lo + hi)
+			}
 		}
-		if hi-lo <= 1e-12*hi {
+		_, a, ok := f.static(mid)
+		switch {
+		case !ok:
+			hi, ghi, side = mid, math.NaN(), 0
+		case mid/f.cosAlpha >= a:
+			hi, ghi = mid, mid/f.cosAlpha-a
+			if side == -1 {
+				glo /= 2
+			}
+			side = -1
+		default:
+			lo, glo = mid, mid/f.cosAlpha-a
+			if side == 1 && !math.IsNaN(ghi) {
+				ghi /= 2
+			}
+			side = 1
+		}
+		if hi-lo <= 1e-12*hi || math.Abs(glo) <= 1e-12*f.a0 {
 			break
 		}
 	}
