@@ -382,7 +382,7 @@ func (sv *solver) run(ctx context.Context, res *StageResult) (physics.RevPerMin,
 		if err != nil {
 			return 0, comp, sz, err
 		}
-		moved := false
+		moved, speedMoved := false, false
 		if sv.d.Impeller.SlipFactor == nil {
 			sigma, err := slipFrom(sv.d.Impeller, sz.Coefficients.InletTipRatio)
 			if err != nil {
@@ -398,7 +398,7 @@ func (sv *solver) run(ctx context.Context, res *StageResult) (physics.RevPerMin,
 				return 0, comp, sz, err
 			}
 			if math.Abs(float64(next/n)-1) > solverTolerance {
-				n, moved = next, true
+				n, moved, speedMoved = next, true, true
 			}
 			unrounded = n
 		}
@@ -409,6 +409,11 @@ func (sv *solver) run(ctx context.Context, res *StageResult) (physics.RevPerMin,
 			}
 			if f := sv.est.Value - sv.eff.Value; math.Abs(f) > efficiencyTolerance {
 				next := sv.est.Value
+				// Secant steps only while the speed stands still: a slope
+				// across a moving speed misleads.
+				if speedMoved {
+					havePrev = false
+				}
 				if havePrev && f != prevF {
 					if s := sv.eff.Value - f*(sv.eff.Value-prevEta)/(f-prevF); s > 0.2 && s < 1 {
 						next = s
