@@ -149,6 +149,7 @@ func dutyOf(r StageRequest) (service.StageDuty, error) {
 	d.Impeller.ExitMeridionalVelocity = conv(imp.ExitMeridionalVelocity, dimVelocity, "impeller.exit_meridional_velocity")
 	d.Impeller.Inlet.MeridionalVelocity = conv(inlet.MeridionalVelocity, dimVelocity, "impeller.inlet.meridional_velocity")
 	d.Impeller.Inlet.EyeTipDiameter = conv(inlet.EyeTipDiameter, dimLength, "impeller.inlet.eye_tip_diameter")
+	d.MechanicalLosses = conv(r.MechanicalLosses, dimPower, "mechanical_losses")
 	if r.Driver != nil {
 		d.Driver = &service.DriverInput{Margin: r.Driver.Margin, Rating: conv(r.Driver.Rating, dimPower, "driver.rating")}
 	}

@@ -28,7 +28,10 @@ type StageRequest struct {
 	Efficiency *EfficiencySpec `json:"efficiency,omitempty"`
 	// MechanicalEfficiency is gas power over shaft power (bearing and seal
 	// losses); default 0.98.
-	MechanicalEfficiency *float64 `json:"mechanical_efficiency,omitempty" format:"double" minimum:"0" maximum:"1" example:"0.98"`
+	MechanicalEfficiency *float64 `json:"mechanical_efficiency,omitempty" binding:"excluded_with=MechanicalLosses" format:"double" minimum:"0" maximum:"1" example:"0.98"`
+	// MechanicalLosses are the bearing, seal and gear losses, W (or "kW"),
+	// instead of mechanical_efficiency: shaft power = gas power + losses.
+	MechanicalLosses *Quantity `json:"mechanical_losses,omitempty" swaggertype:"primitive,number" format:"double" example:"12000" extensions:"x-unit-string=power"`
 	// Impeller is the blading and inlet; leave it (or any of its fields)
 	// out for the defaults of a backswept process impeller, each recorded
 	// in provenance.defaults_applied.

@@ -126,6 +126,8 @@ func TestChoiceErrors(t *testing.T) {
 		{"driver margin and rating", func(d *service.StageDuty) {
 			d.Driver = &service.DriverInput{Margin: f(1.1), Rating: f(1e6)}
 		}, "driver.rating", true},
+		{"mechanical losses and efficiency", func(d *service.StageDuty) { d.MechanicalEfficiency, d.MechanicalLosses = f(0.98), f(5e3) }, "mechanical_losses", true},
+		{"negative mechanical losses", func(d *service.StageDuty) { d.MechanicalLosses = f(-1) }, "mechanical_losses", false},
 		{"driver margin 0.9", func(d *service.StageDuty) { d.Driver = &service.DriverInput{Margin: f(0.9)} }, "driver.margin", false},
 		{"override of no rule", func(d *service.StageDuty) {
 			d.LimitOverrides = map[string]service.LevelOverride{"tip-sped": {Warning: 300}}
@@ -170,6 +172,10 @@ func TestOverridesAndDriverRating(t *testing.T) {
 	assert.Nil(t, warning(res, "tip-speed"), "far inside the raised level")
 
 	d.LimitOverrides = nil
+	d.MechanicalLosses = f(7500) // shaft = gas + losses (definition)
+	withLosses := size(t, d)
+	assert.InDelta(t, withLosses.Power.Gas+7500, withLosses.Power.Shaft, 1e-6)
+	d.MechanicalLosses = nil
 	d.Driver = &service.DriverInput{Rating: f(base.Power.Shaft * 1.05)}
 	res = size(t, d)
 	w = warning(res, "driver-margin")

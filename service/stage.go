@@ -146,19 +146,22 @@ type StageDuty struct {
 	StandardVolumeFlow *float64 `json:"standard_volume_flow,omitempty"`
 	// StandardReference names the reference condition of
 	// StandardVolumeFlow: "normal", "standard" or "us-standard".
-	StandardReference    string        `json:"standard_reference,omitempty"`
-	Speed                *float64      `json:"speed,omitempty"`
-	TipDiameter          *float64      `json:"tip_diameter,omitempty"`
-	SpeedTarget          *SpeedTarget  `json:"speed_target,omitempty"`
-	SpeedStep            *float64      `json:"speed_step,omitempty"`
-	IsentropicEfficiency *float64      `json:"isentropic_efficiency,omitempty"`
-	PolytropicEfficiency *float64      `json:"polytropic_efficiency,omitempty"`
-	MechanicalEfficiency *float64      `json:"mechanical_efficiency,omitempty"`
-	Impeller             ImpellerInput `json:"impeller"`
-	Diffuser             string        `json:"diffuser,omitempty"`
-	PolytropicMethod     string        `json:"polytropic_method,omitempty"`
-	ImpellerLossShare    *float64      `json:"impeller_loss_share,omitempty"`
-	Driver               *DriverInput  `json:"driver,omitempty"`
+	StandardReference    string       `json:"standard_reference,omitempty"`
+	Speed                *float64     `json:"speed,omitempty"`
+	TipDiameter          *float64     `json:"tip_diameter,omitempty"`
+	SpeedTarget          *SpeedTarget `json:"speed_target,omitempty"`
+	SpeedStep            *float64     `json:"speed_step,omitempty"`
+	IsentropicEfficiency *float64     `json:"isentropic_efficiency,omitempty"`
+	PolytropicEfficiency *float64     `json:"polytropic_efficiency,omitempty"`
+	MechanicalEfficiency *float64     `json:"mechanical_efficiency,omitempty"`
+	// MechanicalLosses are bearing, seal and gear losses, W (instead of
+	// MechanicalEfficiency).
+	MechanicalLosses  *float64      `json:"mechanical_losses,omitempty"`
+	Impeller          ImpellerInput `json:"impeller"`
+	Diffuser          string        `json:"diffuser,omitempty"`
+	PolytropicMethod  string        `json:"polytropic_method,omitempty"`
+	ImpellerLossShare *float64      `json:"impeller_loss_share,omitempty"`
+	Driver            *DriverInput  `json:"driver,omitempty"`
 	// LimitOverrides replaces the levels of limit rules by rule ID.
 	LimitOverrides map[string]LevelOverride `json:"limit_overrides,omitempty"`
 }
@@ -514,17 +517,26 @@ func inletOf(in InletInput, prov *Provenance) (stage.Inlet, error) {
 
 func power(d StageDuty, mdot, work float64, prov *Provenance) (Power, error) {
 	eta := DefaultMechanicalEfficiency
-	if d.MechanicalEfficiency != nil {
+	g := mdot * work
+	switch {
+	case d.MechanicalEfficiency != nil && d.MechanicalLosses != nil:
+		return Power{}, shapeErr("mechanical_losses", errors.New("give mechanical_efficiency or mechanical_losses, not both"))
+	case d.MechanicalLosses != nil:
+		l := *d.MechanicalLosses
+		if !(l >= 0) || math.IsInf(l, 0) {
+			return Power{}, fieldErr("mechanical_losses", reason("mechanical_losses", "the mechanical losses must be a number of W, at least 0", l))
+		}
+		eta = g / (g + l)
+	case d.MechanicalEfficiency != nil:
 		eta = *d.MechanicalEfficiency
 		if !(eta > 0 && eta <= 1) {
 			return Power{}, fieldErr("mechanical_efficiency", reason("mechanical_efficiency",
 				"the mechanical efficiency must lie in (0, 1]", eta))
 		}
-	} else {
+	default:
 		prov.Defaults = append(prov.Defaults, Default{Field: "mechanical_efficiency", Value: "0.98",
 			Note: "bearing and seal losses of about 2 % of gas power (common practice, no source)"})
 	}
-	g := mdot * work
 	shaft := g / eta
 	out := Power{Gas: g, Shaft: shaft, MechanicalEfficiency: eta}
 	var dr DriverInput

@@ -215,3 +215,60 @@ func TestOverride(t *testing.T) {
 	require.NoError(t, err)
 	assert.Equal(t, limits.Warning, a.Severity)
 }
+
+// allRules lists every rule the package offers, for the grading table.
+func allRules(t *testing.T) []limits.Rule {
+	t.Helper()
+	rules := []limits.Rule{limits.InducerRelativeMach(), limits.MachineMach(), limits.DiffuserInletMach(false),
+		limits.DiffuserInletMach(true), limits.DiffuserFlowAngle(), limits.FlowCoefficientLow(), limits.FlowCoefficientHigh(),
+		limits.ExitWidthNarrow(), limits.ExitWidthWide(), limits.HeadCoefficientLow(), limits.HeadCoefficientHigh(),
+		limits.ClosedImpellerHead(), limits.RelativeVelocityRatio(), limits.SpecificSpeedLow(), limits.SpecificSpeedHigh(),
+		limits.EyeTipRatio(), limits.DriverMarginRule()}
+	for _, c := range limits.Constructions() {
+		r, err := limits.TipSpeed(c)
+		require.NoError(t, err)
+		rules = append(rules, r, limits.StagePressureRatio(c))
+	}
+	for _, s := range limits.Services() {
+		r, err := limits.DischargeTemperature(s)
+		require.NoError(t, err)
+		rules = append(rules, r)
+	}
+	return rules
+}
+
+// Every rule graded at and around its levels (the levels are those of
+// rules-of-thumb.md, each labelled at its constructor; the grading is the
+// definition in Rule.Check): well inside → ok, 2 % inside → notice, at
+// the warning level → notice (a concern starts past it), 1 % past →
+// warning, at the limit → warning, 1 % past the limit → limit (rules with
+// no limit stay at warning).
+func TestEveryRuleAroundItsLevels(t *testing.T) {
+	for _, r := range allRules(t) {
+		toward := 1.0 // multiplier that moves a value toward the concern
+		if r.Sense == limits.Below {
+			toward = -1
+		}
+		w := r.Warning
+		at := func(frac float64) float64 { return w + toward*frac*math.Abs(w) }
+		grade := func(v float64) limits.Severity {
+			a, err := r.Check(v)
+			require.NoError(t, err, r.ID)
+			return a.Severity
+		}
+		assert.Equal(t, limits.OK, grade(at(-0.2)), "%s well inside", r.ID)
+		assert.Equal(t, limits.Notice, grade(at(-0.02)), "%s 2 %% inside", r.ID)
+		assert.Equal(t, limits.Notice, grade(w), "%s at the warning level", r.ID)
+		past := at(0.01)
+		if !math.IsNaN(r.Limit) && toward*(past-r.Limit) > 0 {
+			past = (w + r.Limit) / 2 // the two levels closer than 1 %
+		}
+		assert.Equal(t, limits.Warning, grade(past), "%s just past the warning level", r.ID)
+		if math.IsNaN(r.Limit) {
+			assert.Equal(t, limits.Warning, grade(at(10)), "%s has no limit", r.ID)
+			continue
+		}
+		assert.Equal(t, limits.Warning, grade(r.Limit), "%s at the limit", r.ID)
+		assert.Equal(t, limits.Limit, grade(r.Limit+toward*0.01*math.Abs(r.Limit)), "%s past the limit", r.ID)
+	}
+}
