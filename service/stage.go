@@ -265,6 +265,9 @@ func (s *Service) SizeStage(ctx context.Context, d StageDuty) (StageResult, erro
 		return StageResult{}, compressionError(err, effField, d)
 	}
 	res.Path = comp
+	if err := ctx.Err(); err != nil { // the path is the costly step under a cubic model
+		return StageResult{}, err
+	}
 	prov.Methods = append(prov.Methods,
 		Method{Subject: "compression path", Name: "isentropic discharge by (P,s) flash; polytropic " + method.String(),
 			Source: "Schultz, ASME J. Eng. Power 84(1):69-82 (1962) and ASME PTC 10-1997 (Schultz); Huntington, ASME J. Eng. Gas Turbines Power 107:872 (1985) (stepwise path)"},
@@ -300,6 +303,9 @@ func (s *Service) SizeStage(ctx context.Context, d StageDuty) (StageResult, erro
 		return StageResult{}, sizingError(err)
 	}
 	if d.Impeller.SlipFactor == nil {
+		if err := ctx.Err(); err != nil {
+			return StageResult{}, err
+		}
 		sz, imp, err = refineSlip(d.Impeller, duty, imp, inlet, sz, prov)
 		if err != nil {
 			return StageResult{}, err
