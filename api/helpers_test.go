@@ -2,7 +2,6 @@ package api_test
 
 import (
 	"encoding/json"
-	"log/slog"
 	"net/http"
 	"net/http/httptest"
 	"os"
@@ -61,7 +60,7 @@ func TestMain(m *testing.M) {
 // newRouter is the production router over the real service, logging nowhere.
 func newRouter(tb testing.TB) http.Handler {
 	tb.Helper()
-	r, err := api.NewRouter(service.New(), slog.New(slog.DiscardHandler), openapi.Swagger2())
+	r, err := api.NewRouter(service.New(), api.Options{Spec: openapi.Swagger2()})
 	require.NoError(tb, err)
 	return r
 }
@@ -192,5 +191,5 @@ func requireProblem(tb testing.TB, w *httptest.ResponseRecorder, status int, kin
 
 // newRouterWith builds the router over a given Swagger 2.0 document.
 func newRouterWith(spec []byte) (http.Handler, error) {
-	return api.NewRouter(service.New(), slog.New(slog.DiscardHandler), spec)
+	return api.NewRouter(service.New(), api.Options{Spec: spec})
 }
