@@ -50,6 +50,12 @@ var titles = map[string]string{
 	"unprocessable":      "Input outside what the model covers",
 	"not-found":          "No such endpoint",
 	"method-not-allowed": "Method not allowed",
+	"unauthorized":       "Authentication required",
+	"body-too-large":     "Request body too large",
+	"overloaded":         "Service overloaded",
+	"compute-timeout":    "Computation timed out",
+	"cancelled":          "Request cancelled",
+	"not-ready":          "Not ready",
 }
 
 func TestMain(m *testing.M) {
@@ -142,12 +148,13 @@ func duty(tb testing.TB, base string, edits ...edit) string {
 
 // problem is an RFC 9457 problem as a client reads it.
 type problem struct {
-	Type     string `json:"type"`
-	Title    string `json:"title"`
-	Status   int    `json:"status"`
-	Detail   string `json:"detail"`
-	Instance string `json:"instance"`
-	Errors   []struct {
+	Type      string `json:"type"`
+	Title     string `json:"title"`
+	Status    int    `json:"status"`
+	Detail    string `json:"detail"`
+	Instance  string `json:"instance"`
+	RequestID string `json:"request_id"`
+	Errors    []struct {
 		Pointer string `json:"pointer"`
 		Detail  string `json:"detail"`
 	} `json:"errors"`

@@ -2,6 +2,7 @@ package api
 
 import (
 	"errors"
+	"fmt"
 	"net/http"
 	"runtime"
 	"strings"
@@ -30,7 +31,8 @@ type metrics struct {
 
 // newMetrics registers the request series, the build information and the Go
 // runtime and process collectors on reg (a new registry when reg is nil).
-// Collectors reg already holds are kept.
+// A registry may hold the Go and process collectors already, not the
+// request series: each router needs its own.
 func newMetrics(reg *prometheus.Registry, version, commit string) (*metrics, error) {
 	if reg == nil {
 		reg = prometheus.NewRegistry()
@@ -64,14 +66,17 @@ func newMetrics(reg *prometheus.Registry, version, commit string) (*metrics, err
 			"model_version": service.ModelVersion},
 	})
 	build.Set(1)
-	for _, c := range []prometheus.Collector{m.requests, m.latency, m.inFlight, m.problems, build,
-		collectors.NewGoCollector(), collectors.NewProcessCollector(collectors.ProcessCollectorOpts{})} {
+	for _, c := range []prometheus.Collector{m.requests, m.latency, m.inFlight, m.problems, build} {
+		if err := reg.Register(c); err != nil {
+			return nil, fmt.Errorf("api: metrics: %w (one registry per router)", err)
+		}
+	}
+	for _, c := range []prometheus.Collector{collectors.NewGoCollector(), collectors.NewProcessCollector(collectors.ProcessCollectorOpts{})} {
 		if err := reg.Register(c); err != nil {
 			var are prometheus.AlreadyRegisteredError
-			if errors.As(err, &are) {
-				continue // e.g. the Go collector of a registry shared by two routers
+			if !errors.As(err, &are) { // a registry given with its own Go and process collectors is fine
+				return nil, err
 			}
-			return nil, err
 		}
 	}
 	return m, nil
