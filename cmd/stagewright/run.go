@@ -49,8 +49,8 @@ func run(ctx context.Context, args []string, getenv func(string) string, stdout,
 		MaxHeaderBytes:    1 << 16,
 		ErrorLog:          slog.NewLogLogger(log.Handler(), slog.LevelWarn),
 	}
-	scheme := "http"
-	if cfg.TLSCertFile != "" {
+	scheme, useTLS := "http", cfg.TLSCertFile != ""
+	if useTLS {
 		pair, err := tls.LoadX509KeyPair(cfg.TLSCertFile, cfg.TLSKeyFile)
 		if err != nil {
 			return fmt.Errorf("STAGEWRIGHT_TLS_CERT_FILE / STAGEWRIGHT_TLS_KEY_FILE: %w", err)
@@ -64,8 +64,8 @@ func run(ctx context.Context, args []string, getenv func(string) string, stdout,
 	}
 	base := scheme + "://" + ln.Addr().String()
 	errc := make(chan error, 1)
-	go func() {
-		if srv.TLSConfig != nil {
+	go func() { // from here on srv belongs to Serve: its fields are not read
+		if useTLS {
 			errc <- srv.ServeTLS(ln, "", "")
 			return
 		}
@@ -74,7 +74,7 @@ func run(ctx context.Context, args []string, getenv func(string) string, stdout,
 	ready.Store(true)
 	log.Info("serving", "addr", ln.Addr().String(), "url", base, "openapi", base+"/openapi.json",
 		"version", ver, "commit", rev, "model_version", service.ModelVersion,
-		"auth", len(cfg.Tokens) > 0, "tls", srv.TLSConfig != nil, "max_in_flight", cfg.MaxInFlight,
+		"auth", len(cfg.Tokens) > 0, "tls", useTLS, "max_in_flight", cfg.MaxInFlight,
 		"max_body_bytes", cfg.MaxBodyBytes, "compute_timeout", cfg.ComputeTimeout.String())
 	if cfg.Demo {
 		token := ""
