@@ -85,9 +85,12 @@ func observe(log *slog.Logger, m *metrics) gin.HandlerFunc {
 			m.problems.WithLabelValues(kind).Inc()
 			attrs = append(attrs, slog.String("problem", kind))
 		}
-		level := slog.LevelInfo
-		if status >= http.StatusInternalServerError {
+		level := slog.LevelInfo // 503 (shed, not ready) and 504 are expected under load or shutdown
+		switch {
+		case status == http.StatusInternalServerError:
 			level = slog.LevelError
+		case status > http.StatusInternalServerError:
+			level = slog.LevelWarn
 		}
 		log.LogAttrs(c.Request.Context(), level, "request", attrs...)
 	}

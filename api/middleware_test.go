@@ -324,6 +324,7 @@ func TestComputeDeadline(t *testing.T) {
 	assert.Empty(t, logs.lines(t, "request failed"), "a timeout is not a server fault")
 	for _, l := range logs.lines(t, "request") {
 		assert.Equal(t, "compute-timeout", l["problem"])
+		assert.Equal(t, "WARN", l["level"], "a timeout is logged as a warning, not a fault")
 	}
 
 	t.Run("no deadline configured: the service's context has none", func(t *testing.T) {
@@ -553,6 +554,7 @@ func TestPanicRecovery(t *testing.T) {
 	req := logs.lines(t, "request")
 	require.Len(t, req, 1)
 	assert.Equal(t, float64(500), req[0]["status"])
+	assert.Equal(t, "ERROR", req[0]["level"], "a 500 is a fault")
 
 	w = send(h, request(http.MethodPost, "/v1/stage/size/batch", `{"duties": [`+demoDuty+`,`+demoDuty+`]}`))
 	require.Equal(t, http.StatusOK, w.Code, w.Body.String())
