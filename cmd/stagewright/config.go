@@ -108,6 +108,11 @@ func loadConfig(args []string, getenv func(string) string, stderr io.Writer) (co
 	delay := dur("shutdown-delay", "STAGEWRIGHT_SHUTDOWN_DELAY", cfg.ShutdownDelay, "time between SIGTERM (readiness off) and closing the listener, for load balancers to notice; 0s: none")
 	cert := str("tls-cert-file", "STAGEWRIGHT_TLS_CERT_FILE", "", "PEM certificate chain; with --tls-key-file, serve HTTPS")
 	key := str("tls-key-file", "STAGEWRIGHT_TLS_KEY_FILE", "", "PEM private key of --tls-cert-file")
+	fs.Usage = func() {
+		fmt.Fprintln(fs.Output(), "Usage of stagewright (every flag also reads its STAGEWRIGHT_* variable; a flag wins):")
+		fs.PrintDefaults()
+		fmt.Fprintln(fs.Output(), "  STAGEWRIGHT_API_TOKENS (environment only)\n    \tcomma-separated bearer tokens of at least 16 characters; when set, every /v1 request needs one")
+	}
 	if err := fs.Parse(args); err != nil {
 		return cfg, err
 	}
