@@ -654,3 +654,28 @@ func TestReadyAndVersion(t *testing.T) {
 	h, _ = newRouterOpts(t, nil, api.Options{})
 	assert.Equal(t, http.StatusOK, send(h, request(http.MethodGet, "/readyz", "")).Code, "no Ready func: always ready")
 }
+
+// BenchmarkPostStageProduction: BenchmarkPostStage with every /v1
+// middleware on (token, concurrency limit, body limit, compute deadline,
+// CORS, a JSON log line into a buffer), for the cost of the middleware.
+func BenchmarkPostStageProduction(b *testing.B) {
+	const token = "kestrel-token-alpha-0123456789"
+	h, logs := newRouterOpts(b, nil, api.Options{Tokens: []string{"other-token-0000000000", token}, MaxInFlight: 64,
+		ComputeTimeout: 20 * time.Second, CORSOrigins: []string{"https://ops.kestrel.example"}})
+	body := []byte(demoDuty)
+	b.ReportAllocs()
+	b.SetBytes(int64(len(body)))
+	for b.Loop() {
+		req := httptest.NewRequest(http.MethodPost, "/v1/stage/size", bytes.NewReader(body))
+		req.Header.Set("Authorization", "Bearer "+token)
+		req.Header.Set("Origin", "https://ops.kestrel.example")
+		w := httptest.NewRecorder()
+		h.ServeHTTP(w, req)
+		if w.Code != http.StatusOK {
+			b.Fatalf("status %d: %s", w.Code, w.Body.String())
+		}
+		logs.mu.Lock()
+		logs.b.Reset()
+		logs.mu.Unlock()
+	}
+}
