@@ -250,9 +250,14 @@ func parseOrigins(v string) ([]string, error) {
 // back to the VCS revision the go command recorded (with "-dirty" for a
 // modified tree).
 func buildVersion() (string, string) {
-	v, c := version, commit
-	bi, ok := debug.ReadBuildInfo()
-	if !ok {
+	bi, _ := debug.ReadBuildInfo()
+	return stamp(version, commit, bi)
+}
+
+// stamp fills the defaults "dev" and "unknown" of v and c from bi (nil:
+// no build information).
+func stamp(v, c string, bi *debug.BuildInfo) (string, string) {
+	if bi == nil {
 		return v, c
 	}
 	if v == "dev" && bi.Main.Version != "" && bi.Main.Version != "(devel)" {

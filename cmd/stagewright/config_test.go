@@ -5,6 +5,7 @@ import (
 	"log/slog"
 	"os"
 	"path/filepath"
+	"runtime/debug"
 	"strings"
 	"testing"
 	"time"
@@ -154,4 +155,37 @@ func TestBuildVersion(t *testing.T) {
 	v, c = buildVersion()
 	assert.Equal(t, "1.2.3", v)
 	assert.Equal(t, "abc123", c)
+}
+
+// TestStamp: without -ldflags the commit is the recorded VCS revision,
+// marked -dirty for a modified tree, and the version the module's, unless
+// it is the "(devel)" of a local build; stamped values are kept.
+func TestStamp(t *testing.T) {
+	info := func(mainVersion string, settings ...string) *debug.BuildInfo {
+		bi := &debug.BuildInfo{Main: debug.Module{Path: "stagewright", Version: mainVersion}}
+		for i := 0; i+1 < len(settings); i += 2 {
+			bi.Settings = append(bi.Settings, debug.BuildSetting{Key: settings[i], Value: settings[i+1]})
+		}
+		return bi
+	}
+	tests := []struct {
+		name         string
+		v, c         string
+		bi           *debug.BuildInfo
+		wantV, wantC string
+	}{
+		{"no build information", "dev", "unknown", nil, "dev", "unknown"},
+		{"local build without VCS", "dev", "unknown", info("(devel)"), "dev", "unknown"},
+		{"clean tree", "dev", "unknown", info("(devel)", "vcs.revision", "954da3b5", "vcs.modified", "false"), "dev", "954da3b5"},
+		{"modified tree", "dev", "unknown", info("(devel)", "vcs.revision", "954da3b5", "vcs.modified", "true"), "dev", "954da3b5-dirty"},
+		{"go install of a tagged module", "dev", "unknown", info("v1.4.0"), "v1.4.0", "unknown"},
+		{"ldflags win", "1.4.0", "abc", info("v9.9.9", "vcs.revision", "954da3b5"), "1.4.0", "abc"},
+	}
+	for _, tc := range tests {
+		t.Run(tc.name, func(t *testing.T) {
+			v, c := stamp(tc.v, tc.c, tc.bi)
+			assert.Equal(t, tc.wantV, v)
+			assert.Equal(t, tc.wantC, c)
+		})
+	}
 }
