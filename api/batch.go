@@ -1,8 +1,10 @@
 package api
 
 import (
+	"fmt"
 	"net/http"
 	"runtime"
+	"runtime/debug"
 	"sync"
 
 	"github.com/gin-gonic/gin"
@@ -45,14 +47,19 @@ type BatchItem struct {
 //	@Param			batch	body		BatchRequest	true	"duty points"
 //	@Success		200		{object}	BatchResponse
 //	@Failure		400		{object}	Problem	"malformed JSON, unknown field, or a duty of the wrong shape"
+//	@Failure		401		{object}	Problem	"no valid bearer token (when the service is configured with tokens)"
+//	@Failure		413		{object}	Problem	"body larger than the configured limit (default 1 MiB)"
 //	@Failure		500		{object}	Problem
+//	@Failure		503		{object}	Problem	"overloaded (retry after the Retry-After header's seconds) or cancelled"
+//	@Failure		504		{object}	Problem	"the computation passed the service's compute deadline"
 //	@Router			/v1/stage/size/batch [post]
 func (h stageHandler) sizeBatch(c *gin.Context) {
 	var req BatchRequest
-	if err := decodeStrict(c.Request, c.Writer, &req, h.validate); err != nil {
+	if err := decodeStrict(c.Request, &req, h.validate); err != nil {
 		fail(c, h.log, err)
 		return
 	}
+	ctx := c.Request.Context()
 	out := BatchResponse{Results: make([]BatchItem, len(req.Duties))}
 	work := make(chan int)
 	var wg sync.WaitGroup
@@ -65,11 +72,20 @@ func (h stageHandler) sizeBatch(c *gin.Context) {
 			}
 		}()
 	}
+feed:
 	for i := range req.Duties {
-		work <- i
+		select {
+		case work <- i:
+		case <-ctx.Done(): // deadline or client gone: size no further duty
+			break feed
+		}
 	}
 	close(work)
 	wg.Wait()
+	if err := ctx.Err(); err != nil {
+		fail(c, h.log, err) // 504 on the compute deadline; partial results are not sent
+		return
+	}
 	for _, r := range out.Results {
 		if r.Status == http.StatusOK {
 			out.Succeeded++
@@ -80,14 +96,23 @@ func (h stageHandler) sizeBatch(c *gin.Context) {
 	c.JSON(http.StatusOK, out)
 }
 
-// one sizes duty i of a batch.
-func (h stageHandler) one(c *gin.Context, i int, r StageRequest) BatchItem {
-	item := BatchItem{Index: i}
+// one sizes duty i of a batch. It runs on a worker goroutine, out of reach
+// of the recovery middleware, so it recovers a panic itself into a 500 item.
+func (h stageHandler) one(c *gin.Context, i int, r StageRequest) (item BatchItem) {
+	item = BatchItem{Index: i}
+	defer func() {
+		if rec := recover(); rec != nil {
+			h.log.Error("panic", "request_id", c.GetString(requestIDKey), "route", routeLabel(c), "index", i,
+				"panic", fmt.Sprint(rec), "stack", string(debug.Stack()))
+			p := Problem{Type: "about:blank", Title: "Internal Server Error", Status: http.StatusInternalServerError}
+			item = BatchItem{Index: i, Status: p.Status, Problem: &p}
+		}
+	}()
 	res, err := h.sizeOne(c, r)
 	if err != nil {
 		p := problemFor(err)
-		if p.Status >= 500 {
-			h.log.Error("batch item failed", "index", i, "err", err)
+		if p.Status == http.StatusInternalServerError {
+			h.log.Error("batch item failed", "request_id", c.GetString(requestIDKey), "index", i, "err", err)
 		}
 		item.Status, item.Problem = p.Status, &p
 		return item

@@ -15,9 +15,6 @@ import (
 	"github.com/go-playground/validator/v10"
 )
 
-// maxBody bounds a request body (1 MiB: a batch of a few thousand duties).
-const maxBody = 1 << 20
-
 // newValidator returns a validator that names fields by their JSON names,
 // so that error namespaces read "StageRequest.suction.pressure".
 func newValidator() *validator.Validate {
@@ -36,13 +33,14 @@ func newValidator() *validator.Validate {
 // decodeStrict reads one JSON value into dst (a pointer to a request
 // struct), rejecting malformed JSON, trailing data, unknown or miscased
 // field names (each reported with its JSON pointer) and wrong JSON types,
-// and then runs the validator's shape checks.
-func decodeStrict(r *http.Request, w http.ResponseWriter, dst any, v *validator.Validate) error {
-	body, err := io.ReadAll(http.MaxBytesReader(w, r.Body, maxBody))
+// and then runs the validator's shape checks. The body's size is bounded
+// by the bodyLimit middleware; its *http.MaxBytesError is returned as is.
+func decodeStrict(r *http.Request, dst any, v *validator.Validate) error {
+	body, err := io.ReadAll(r.Body)
 	if err != nil {
 		var mbe *http.MaxBytesError
 		if errors.As(err, &mbe) {
-			return errTooLarge
+			return mbe
 		}
 		return fmt.Errorf("%w: body unreadable", errBadBody)
 	}

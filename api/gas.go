@@ -143,11 +143,15 @@ type gasHandler struct {
 //	@Success		200		{object}	PropertiesResponse
 //	@Failure		400		{object}	Problem	"malformed JSON, unknown field or bad composition"
 //	@Failure		422		{object}	Problem	"state outside the model"
+//	@Failure		401		{object}	Problem	"no valid bearer token (when the service is configured with tokens)"
+//	@Failure		413		{object}	Problem	"body larger than the configured limit (default 1 MiB)"
 //	@Failure		500		{object}	Problem
+//	@Failure		503		{object}	Problem	"overloaded (retry after the Retry-After header's seconds) or cancelled"
+//	@Failure		504		{object}	Problem	"the computation passed the service's compute deadline"
 //	@Router			/v1/gas/properties [post]
 func (h gasHandler) properties(c *gin.Context) {
 	var req PropertiesRequest
-	if err := decodeStrict(c.Request, c.Writer, &req, h.validate); err != nil {
+	if err := decodeStrict(c.Request, &req, h.validate); err != nil {
 		fail(c, h.log, err)
 		return
 	}
@@ -204,6 +208,8 @@ func (h gasHandler) properties(c *gin.Context) {
 //	@Tags			gas
 //	@Produce		json
 //	@Success		200	{object}	ComponentsResponse
+//	@Failure		401	{object}	Problem	"no valid bearer token (when the service is configured with tokens)"
+//	@Failure		503	{object}	Problem	"overloaded (retry after the Retry-After header's seconds)"
 //	@Router			/v1/gas/components [get]
 func (h gasHandler) components(c *gin.Context) {
 	out := ComponentsResponse{Components: []ComponentOut{}, Mixtures: []MixtureOut{}}

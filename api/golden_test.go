@@ -6,6 +6,7 @@ import (
 	"flag"
 	"math"
 	"net/http"
+	"net/http/httptest"
 	"os"
 	"path/filepath"
 	"strings"
@@ -68,10 +69,11 @@ func runGoldens(t *testing.T, dir string, check func(t *testing.T, code int, bod
 			require.NoError(t, err)
 			w := postStage(h, string(body))
 			check(t, w.Code, w.Body.Bytes())
+			got := withoutRequestID(t, w)
 			goldenPath := filepath.Join(dir, name+".golden.json")
 			if *update {
 				var pretty bytes.Buffer
-				require.NoError(t, json.Indent(&pretty, w.Body.Bytes(), "", "  "))
+				require.NoError(t, json.Indent(&pretty, got, "", "  "))
 				pretty.WriteByte('\n')
 				require.NoError(t, os.WriteFile(goldenPath, pretty.Bytes(), 0o644))
 			}
@@ -82,9 +84,26 @@ func runGoldens(t *testing.T, dir string, check func(t *testing.T, code int, bod
 				require.NoError(t, json.Unmarshal(golden, &want))
 				assert.Equal(t, want.Status, w.Code, "golden status")
 			}
-			assertJSONClose(t, golden, w.Body.Bytes())
+			assertJSONClose(t, golden, got)
 		})
 	}
+}
+
+// withoutRequestID returns the body of w without the request_id of a
+// problem (a fresh random id per request, so not part of a golden), after
+// checking that it is the one in the X-Request-ID header.
+func withoutRequestID(t *testing.T, w *httptest.ResponseRecorder) []byte {
+	t.Helper()
+	if w.Code == http.StatusOK {
+		return w.Body.Bytes()
+	}
+	var m map[string]any
+	require.NoError(t, json.Unmarshal(w.Body.Bytes(), &m), "answer is not JSON: %s", w.Body.String())
+	assert.Equal(t, w.Header().Get("X-Request-ID"), m["request_id"], "the problem quotes the request id of the response header")
+	delete(m, "request_id")
+	out, err := json.Marshal(m)
+	require.NoError(t, err)
+	return out
 }
 
 // assertJSONClose compares want and got with assert.JSONEq after numbers

@@ -2,7 +2,6 @@ package api_test
 
 import (
 	"encoding/json"
-	"log/slog"
 	"net/http"
 	"net/http/httptest"
 	"os"
@@ -51,6 +50,12 @@ var titles = map[string]string{
 	"unprocessable":      "Input outside what the model covers",
 	"not-found":          "No such endpoint",
 	"method-not-allowed": "Method not allowed",
+	"unauthorized":       "Authentication required",
+	"body-too-large":     "Request body too large",
+	"overloaded":         "Service overloaded",
+	"compute-timeout":    "Computation timed out",
+	"cancelled":          "Request cancelled",
+	"not-ready":          "Not ready",
 }
 
 func TestMain(m *testing.M) {
@@ -61,7 +66,7 @@ func TestMain(m *testing.M) {
 // newRouter is the production router over the real service, logging nowhere.
 func newRouter(tb testing.TB) http.Handler {
 	tb.Helper()
-	r, err := api.NewRouter(service.New(), slog.New(slog.DiscardHandler), openapi.Swagger2())
+	r, err := api.NewRouter(service.New(), api.Options{Spec: openapi.Swagger2()})
 	require.NoError(tb, err)
 	return r
 }
@@ -143,12 +148,13 @@ func duty(tb testing.TB, base string, edits ...edit) string {
 
 // problem is an RFC 9457 problem as a client reads it.
 type problem struct {
-	Type     string `json:"type"`
-	Title    string `json:"title"`
-	Status   int    `json:"status"`
-	Detail   string `json:"detail"`
-	Instance string `json:"instance"`
-	Errors   []struct {
+	Type      string `json:"type"`
+	Title     string `json:"title"`
+	Status    int    `json:"status"`
+	Detail    string `json:"detail"`
+	Instance  string `json:"instance"`
+	RequestID string `json:"request_id"`
+	Errors    []struct {
 		Pointer string `json:"pointer"`
 		Detail  string `json:"detail"`
 	} `json:"errors"`
@@ -192,5 +198,5 @@ func requireProblem(tb testing.TB, w *httptest.ResponseRecorder, status int, kin
 
 // newRouterWith builds the router over a given Swagger 2.0 document.
 func newRouterWith(spec []byte) (http.Handler, error) {
-	return api.NewRouter(service.New(), slog.New(slog.DiscardHandler), spec)
+	return api.NewRouter(service.New(), api.Options{Spec: spec})
 }

@@ -1,6 +1,7 @@
 package api
 
 import (
+	"context"
 	"errors"
 	"fmt"
 	"log/slog"
@@ -26,6 +27,9 @@ type Problem struct {
 	Detail   string         `json:"detail,omitempty" example:"1 field is wrong; see errors"`
 	Instance string         `json:"instance,omitempty" example:"/v1/stage/size"`
 	Errors   []FieldProblem `json:"errors,omitempty"`
+	// RequestID is the X-Request-ID of the request, to quote when asking
+	// about it.
+	RequestID string `json:"request_id,omitempty" example:"4f9c2d7e0b1a4c3d8e6f5a4b3c2d1e0f"`
 }
 
 // FieldProblem names one offending field by its JSON pointer (RFC 6901).
@@ -36,9 +40,6 @@ type FieldProblem struct {
 
 // errBadBody marks a body that is not JSON or not of the request's shape.
 var errBadBody = errors.New("api: malformed request body")
-
-// errTooLarge marks a body over maxBody.
-var errTooLarge = errors.New("api: request body too large")
 
 // fieldErrors is a list of shape errors found while decoding.
 type fieldErrors []FieldProblem
@@ -57,6 +58,7 @@ func problemFor(err error) Problem {
 	var fe fieldErrors
 	var ie *service.InputError
 	var de *physics.DomainError
+	var mbe *http.MaxBytesError
 	switch {
 	case errors.As(err, &fe):
 		return Problem{Type: problemBase + "invalid-request", Title: "Request failed validation", Status: http.StatusBadRequest,
@@ -68,9 +70,15 @@ func problemFor(err error) Problem {
 			p.Errors = append(p.Errors, FieldProblem{Pointer: pointerFor(e), Detail: validationDetail(e)})
 		}
 		return p
-	case errors.Is(err, errTooLarge):
+	case errors.As(err, &mbe):
 		return Problem{Type: problemBase + "body-too-large", Title: "Request body too large", Status: http.StatusRequestEntityTooLarge,
-			Detail: fmt.Sprintf("the body exceeds %d bytes; split a batch into smaller ones", maxBody)}
+			Detail: fmt.Sprintf("the body exceeds %d bytes; split a batch into smaller ones", mbe.Limit)}
+	case errors.Is(err, context.DeadlineExceeded):
+		return Problem{Type: problemBase + "compute-timeout", Title: "Computation timed out", Status: http.StatusGatewayTimeout,
+			Detail: "the computation did not finish within the service's compute deadline; split a batch into smaller ones or retry later"}
+	case errors.Is(err, context.Canceled):
+		return Problem{Type: problemBase + "cancelled", Title: "Request cancelled", Status: http.StatusServiceUnavailable,
+			Detail: "the request was cancelled before the computation finished"}
 	case errors.Is(err, errBadBody):
 		return Problem{Type: problemBase + "malformed-body", Title: "Body is not valid JSON", Status: http.StatusBadRequest,
 			Detail: strings.TrimPrefix(strings.TrimPrefix(err.Error(), errBadBody.Error()+": "), "json: ")}
@@ -164,20 +172,27 @@ func jsonName(goName string) string {
 	return b.String()
 }
 
-// writeProblem writes p as application/problem+json and aborts the chain.
+// writeProblem writes p as application/problem+json with the request id
+// and aborts the chain; the type is kept for the log line and the metrics.
 func writeProblem(c *gin.Context, p Problem) {
 	if p.Instance == "" {
 		p.Instance = c.Request.URL.Path
 	}
+	if p.RequestID == "" {
+		p.RequestID = c.GetString(requestIDKey)
+	}
+	c.Set(problemTypeKey, p.Type)
 	c.Header("Content-Type", "application/problem+json")
 	c.AbortWithStatusJSON(p.Status, p)
 }
 
-// fail maps err to a problem, logs server faults, and writes it.
+// fail maps err to a problem, logs server faults (500: the error is logged,
+// never echoed), and writes it. Timeouts and shed requests show in the
+// request's log line.
 func fail(c *gin.Context, log *slog.Logger, err error) {
 	p := problemFor(err)
-	if p.Status >= 500 {
-		log.Error("request failed", "path", c.Request.URL.Path, "err", err)
+	if p.Status == http.StatusInternalServerError {
+		log.Error("request failed", "request_id", c.GetString(requestIDKey), "route", routeLabel(c), "err", err)
 	}
 	writeProblem(c, p)
 }

@@ -1,10 +1,14 @@
 package api
 
 import (
+	"errors"
 	"log/slog"
 	"net/http"
+	"runtime"
+	"time"
 
 	"github.com/gin-gonic/gin"
+	"github.com/prometheus/client_golang/prometheus"
 
 	"stagewright/service"
 )
@@ -15,18 +19,79 @@ type Services interface {
 	GasPropertyService
 }
 
-// NewRouter returns the HTTP handler of the service: routes, recovery,
-// request logging and problem+json for unknown routes and methods. spec is
-// the Swagger 2.0 document that swag generated (openapi/swagger.json); it is
-// converted to OpenAPI 3.0 and validated here, and both are served.
-func NewRouter(svc Services, log *slog.Logger, spec []byte) (*gin.Engine, error) {
-	doc3, err := openAPI3(spec)
+// Options configure the router. The zero value of every field but Spec
+// works: no authentication, a 1 MiB body limit, no compute deadline, no
+// concurrency limit, no CORS, always ready, logs discarded, a private
+// metrics registry.
+type Options struct {
+	// Spec is the Swagger 2.0 document that swag generated
+	// (openapi/swagger.json); required.
+	Spec []byte
+	// Log receives one line per request and every server fault; nil
+	// discards them.
+	Log *slog.Logger
+	// Tokens, when not empty, are the bearer tokens of which every /v1
+	// request must present one.
+	Tokens []string
+	// MaxBodyBytes bounds a request body; 0 is DefaultMaxBodyBytes.
+	MaxBodyBytes int64
+	// ComputeTimeout is the deadline of one /v1 request's computation
+	// (504 when it passes); 0 is none.
+	ComputeTimeout time.Duration
+	// MaxInFlight is the number of /v1 requests served at once; more are
+	// answered 503 with Retry-After at once. 0 is no limit.
+	MaxInFlight int
+	// CORSOrigins are the origins (scheme://host[:port]) allowed to call
+	// the API from a browser; empty turns CORS off.
+	CORSOrigins []string
+	// Version and Commit name the build in GET /version and in the
+	// stagewright_build_info metric.
+	Version, Commit string
+	// Ready reports whether the service takes traffic (GET /readyz); nil
+	// is always ready.
+	Ready func() bool
+	// Registry receives the metrics served at /metrics; nil is a new
+	// private registry.
+	Registry *prometheus.Registry
+}
+
+// NewRouter returns the HTTP handler of the service. Every request passes,
+// in order: request id, log line and metrics, panic recovery, CORS; the
+// /v1 routes then bearer authentication, the concurrency limit, the body
+// limit and the compute deadline. Unknown routes and methods get a
+// problem+json. opts.Spec is converted to OpenAPI 3.0 and validated here,
+// and both documents are served.
+func NewRouter(svc Services, opts Options) (*gin.Engine, error) {
+	if len(opts.Spec) == 0 {
+		return nil, errors.New("api: Options.Spec (the Swagger 2.0 document) is required")
+	}
+	doc3, err := openAPI3(opts.Spec)
 	if err != nil {
 		return nil, err
 	}
+	log := opts.Log
+	if log == nil {
+		log = slog.New(slog.DiscardHandler)
+	}
+	maxBody := opts.MaxBodyBytes
+	if maxBody <= 0 {
+		maxBody = DefaultMaxBodyBytes
+	}
+	ready := opts.Ready
+	if ready == nil {
+		ready = func() bool { return true }
+	}
+	m, err := newMetrics(opts.Registry, opts.Version, opts.Commit)
+	if err != nil {
+		return nil, err
+	}
+
 	r := gin.New()
 	r.HandleMethodNotAllowed = true
-	r.Use(recovery(log), requestLog(log))
+	r.Use(requestID(), observe(log, m), recovery(log))
+	if len(opts.CORSOrigins) > 0 {
+		r.Use(cors(opts.CORSOrigins))
+	}
 	r.NoRoute(func(c *gin.Context) {
 		writeProblem(c, Problem{Type: problemBase + "not-found", Title: "No such endpoint", Status: http.StatusNotFound,
 			Detail: "see GET /openapi.json for the endpoints"})
@@ -37,20 +102,38 @@ func NewRouter(svc Services, log *slog.Logger, spec []byte) (*gin.Engine, error)
 	})
 	r.GET("/healthz", health)
 	r.HEAD("/healthz", health)
+	rd := readiness(ready)
+	r.GET("/readyz", rd)
+	r.HEAD("/readyz", rd)
+	r.GET("/version", versionHandler(opts.Version, opts.Commit))
+	r.GET("/metrics", m.handler())
 	r.GET("/openapi.json", func(c *gin.Context) { c.Data(http.StatusOK, "application/json", doc3) })
+	spec := opts.Spec
 	r.GET("/openapi/swagger.json", func(c *gin.Context) { c.Data(http.StatusOK, "application/json", spec) })
+
+	v1 := r.Group("/v1")
+	if len(opts.Tokens) > 0 {
+		v1.Use(bearerAuth(opts.Tokens))
+	}
+	if opts.MaxInFlight > 0 {
+		v1.Use(shed(opts.MaxInFlight))
+	}
+	v1.Use(bodyLimit(log, maxBody))
+	if opts.ComputeTimeout > 0 {
+		v1.Use(computeDeadline(opts.ComputeTimeout))
+	}
 	st := stageHandler{svc: svc, validate: newValidator(), log: log}
-	r.POST("/v1/stage/size", st.size)
-	r.POST("/v1/stage/size/batch", st.sizeBatch)
+	v1.POST("/stage/size", st.size)
+	v1.POST("/stage/size/batch", st.sizeBatch)
 	gh := gasHandler{svc: svc, validate: st.validate, log: log}
-	r.POST("/v1/gas/properties", gh.properties)
-	r.GET("/v1/gas/components", gh.components)
+	v1.POST("/gas/properties", gh.properties)
+	v1.GET("/gas/components", gh.components)
 	return r, nil
 }
 
-// health answers liveness and readiness probes.
+// health answers the liveness probe: the process serves HTTP.
 //
-//	@Summary	Liveness and readiness
+//	@Summary	Liveness
 //	@Tags		operations
 //	@Produce	json
 //	@Success	200	{object}	Health
@@ -59,23 +142,47 @@ func health(c *gin.Context) {
 	c.JSON(http.StatusOK, Health{Status: "ok", ModelVersion: service.ModelVersion})
 }
 
-// recovery turns a panic into a logged 500 problem.
-func recovery(log *slog.Logger) gin.HandlerFunc {
+// readiness answers the readiness probe.
+//
+//	@Summary		Readiness
+//	@Description	200 while the service takes traffic; 503 problem+json once shutdown has begun, so that load balancers stop sending requests.
+//	@Tags			operations
+//	@Produce		json
+//	@Success		200	{object}	Health
+//	@Failure		503	{object}	Problem	"shutting down"
+//	@Router			/readyz [get]
+func readiness(ready func() bool) gin.HandlerFunc {
 	return func(c *gin.Context) {
-		defer func() {
-			if rec := recover(); rec != nil {
-				log.Error("panic", "path", c.Request.URL.Path, "panic", rec)
-				writeProblem(c, Problem{Type: "about:blank", Title: "Internal Server Error", Status: http.StatusInternalServerError})
-			}
-		}()
-		c.Next()
+		if !ready() {
+			writeProblem(c, Problem{Type: problemBase + "not-ready", Title: "Not ready", Status: http.StatusServiceUnavailable,
+				Detail: "the service is shutting down; send requests to another instance"})
+			return
+		}
+		c.JSON(http.StatusOK, Health{Status: "ready", ModelVersion: service.ModelVersion})
 	}
 }
 
-// requestLog logs one line per request.
-func requestLog(log *slog.Logger) gin.HandlerFunc {
-	return func(c *gin.Context) {
-		c.Next()
-		log.Info("request", "method", c.Request.Method, "path", c.Request.URL.Path, "status", c.Writer.Status())
-	}
+// VersionInfo names the build that answers.
+type VersionInfo struct {
+	// Version of the build (a release tag, or "dev").
+	Version string `json:"version" example:"1.4.0"`
+	// Commit the binary was built from ("unknown" when not recorded).
+	Commit string `json:"commit" example:"e04429c1d2f0"`
+	// GoVersion of the toolchain that built it.
+	GoVersion string `json:"go_version" example:"go1.26.8"`
+	// ModelVersion of the physics; results for the same input may change
+	// when it does.
+	ModelVersion string `json:"model_version" example:"stagewright-physics 0.2.0"`
+}
+
+// versionHandler reports the build.
+//
+//	@Summary	Build and model version
+//	@Tags		operations
+//	@Produce	json
+//	@Success	200	{object}	VersionInfo
+//	@Router		/version [get]
+func versionHandler(version, commit string) gin.HandlerFunc {
+	info := VersionInfo{Version: version, Commit: commit, GoVersion: runtime.Version(), ModelVersion: service.ModelVersion}
+	return func(c *gin.Context) { c.JSON(http.StatusOK, info) }
 }

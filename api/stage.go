@@ -33,11 +33,15 @@ type stageHandler struct {
 //	@Success		200		{object}	StageResponse
 //	@Failure		400		{object}	Problem	"malformed JSON, unknown field, missing or wrongly shaped field"
 //	@Failure		422		{object}	Problem	"physically impossible duty or a state outside the gas model"
+//	@Failure		401		{object}	Problem	"no valid bearer token (when the service is configured with tokens)"
+//	@Failure		413		{object}	Problem	"body larger than the configured limit (default 1 MiB)"
 //	@Failure		500		{object}	Problem
+//	@Failure		503		{object}	Problem	"overloaded (retry after the Retry-After header's seconds) or cancelled"
+//	@Failure		504		{object}	Problem	"the computation passed the service's compute deadline"
 //	@Router			/v1/stage/size [post]
 func (h stageHandler) size(c *gin.Context) {
 	var req StageRequest
-	if err := decodeStrict(c.Request, c.Writer, &req, h.validate); err != nil {
+	if err := decodeStrict(c.Request, &req, h.validate); err != nil {
 		fail(c, h.log, err)
 		return
 	}

@@ -16,8 +16,9 @@ import (
 )
 
 // runDemo posts every demo duty in dir to the running server and prints a
-// summary table: what a newcomer sees first.
-func runDemo(ctx context.Context, base, dir string, out io.Writer) error {
+// summary table: what a newcomer sees first. token, when not empty, is
+// sent as the bearer token.
+func runDemo(ctx context.Context, base, dir, token string, out io.Writer) error {
 	files, err := filepath.Glob(filepath.Join(dir, "*.in.json"))
 	if err != nil || len(files) == 0 {
 		return fmt.Errorf("no demo duties (*.in.json) in %s", dir)
@@ -36,6 +37,9 @@ func runDemo(ctx context.Context, base, dir string, out io.Writer) error {
 			return err
 		}
 		req.Header.Set("Content-Type", "application/json")
+		if token != "" {
+			req.Header.Set("Authorization", "Bearer "+token)
+		}
 		resp, err := client.Do(req)
 		if err != nil {
 			return err

@@ -6,7 +6,6 @@ import (
 	"context"
 	"encoding/json"
 	"io"
-	"log/slog"
 	"net"
 	"net/http"
 	"path/filepath"
@@ -22,46 +21,6 @@ import (
 // envOf is a getenv over a fixed map.
 func envOf(m map[string]string) func(string) string {
 	return func(k string) string { return m[k] }
-}
-
-func TestLoadConfig(t *testing.T) {
-	tests := []struct {
-		name    string
-		args    []string
-		env     map[string]string
-		want    config
-		wantErr string
-	}{
-		{name: "defaults", want: config{Addr: "127.0.0.1:8080", LogLevel: slog.LevelInfo, DemoDir: "testdata/stages", ShutdownTimeout: 10 * time.Second}},
-		{name: "from env", env: map[string]string{"STAGEWRIGHT_ADDR": "127.0.0.1:9000", "STAGEWRIGHT_LOG_LEVEL": "debug", "STAGEWRIGHT_DEMO": "true", "STAGEWRIGHT_DEMO_DIR": "/d"},
-			want: config{Addr: "127.0.0.1:9000", LogLevel: slog.LevelDebug, Demo: true, DemoDir: "/d", ShutdownTimeout: 10 * time.Second}},
-		{name: "flags win over env", args: []string{"--addr", "127.0.0.1:9100", "--log-level", "warn", "--demo=false", "--demo-dir", "/f"},
-			env:  map[string]string{"STAGEWRIGHT_ADDR": "127.0.0.1:9000", "STAGEWRIGHT_LOG_LEVEL": "debug", "STAGEWRIGHT_DEMO": "true", "STAGEWRIGHT_DEMO_DIR": "/d"},
-			want: config{Addr: "127.0.0.1:9100", LogLevel: slog.LevelWarn, DemoDir: "/f", ShutdownTimeout: 10 * time.Second}},
-		{name: "single-dash flag", args: []string{"-log-level=error"}, want: config{Addr: "127.0.0.1:8080", LogLevel: slog.LevelError, DemoDir: "testdata/stages", ShutdownTimeout: 10 * time.Second}},
-		{name: "address without port from flag", args: []string{"--addr", "127.0.0.1"}, wantErr: "listen address"},
-		{name: "address without port from env", env: map[string]string{"STAGEWRIGHT_ADDR": "localhost"}, wantErr: "listen address"},
-		{name: "bad flag address wins over a good env address", args: []string{"--addr", "nonsense"}, env: map[string]string{"STAGEWRIGHT_ADDR": "127.0.0.1:9000"}, wantErr: "listen address"},
-		{name: "port out of range", args: []string{"--addr", "127.0.0.1:99999"}, wantErr: "port must be a number"},
-		{name: "port not a number", env: map[string]string{"STAGEWRIGHT_ADDR": "127.0.0.1:http"}, wantErr: "port must be a number"},
-		{name: "bad log level from flag", args: []string{"--log-level", "verbose"}, wantErr: "log level"},
-		{name: "bad log level from env", env: map[string]string{"STAGEWRIGHT_LOG_LEVEL": "loud"}, wantErr: "log level"},
-		{name: "bad demo switch from env", env: map[string]string{"STAGEWRIGHT_DEMO": "maybe"}, wantErr: "STAGEWRIGHT_DEMO"},
-		{name: "unknown flag", args: []string{"--port", "80"}, wantErr: "flag provided but not defined"},
-		{name: "stray argument", args: []string{"serve"}, wantErr: "unexpected arguments"},
-	}
-	for _, tc := range tests {
-		t.Run(tc.name, func(t *testing.T) {
-			got, err := loadConfig(tc.args, envOf(tc.env), io.Discard)
-			if tc.wantErr != "" {
-				require.Error(t, err)
-				assert.Contains(t, err.Error(), tc.wantErr)
-				return
-			}
-			require.NoError(t, err)
-			assert.Equal(t, tc.want, got)
-		})
-	}
 }
 
 // syncBuffer is a bytes.Buffer safe for the server goroutine and the test.
