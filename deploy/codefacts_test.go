@@ -19,6 +19,7 @@ import (
 // them; TestServerConfigNames checks that cmd/stagewright still has each.
 var serverEnv = []string{
 	"STAGEWRIGHT_ADDR",
+	"STAGEWRIGHT_SHUTDOWN_DELAY",
 	"STAGEWRIGHT_LOG_LEVEL",
 	"STAGEWRIGHT_DEMO",
 	"STAGEWRIGHT_DEMO_DIR",

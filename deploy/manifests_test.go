@@ -380,9 +380,10 @@ func checkManifests(m *manifests, img imageFacts, code codeFacts) findings {
 	if err != nil || grace <= 0 {
 		f.addf("ConfigMap: STAGEWRIGHT_SHUTDOWN_GRACE must be set to a positive Go duration, got %q", cm.Data["STAGEWRIGHT_SHUTDOWN_GRACE"])
 	} else {
-		need := time.Duration(pause)*time.Second + grace
+		delay, _ := time.ParseDuration(cm.Data["STAGEWRIGHT_SHUTDOWN_DELAY"]) // unset: 0
+		need := time.Duration(pause)*time.Second + delay + grace
 		f.check(pod.TerminationGracePeriodSeconds != nil && time.Duration(*pod.TerminationGracePeriodSeconds)*time.Second > need,
-			"pod: terminationGracePeriodSeconds must exceed the preStop pause %d s plus STAGEWRIGHT_SHUTDOWN_GRACE %s", pause, grace)
+			"pod: terminationGracePeriodSeconds must exceed the preStop pause %d s plus STAGEWRIGHT_SHUTDOWN_DELAY %s plus STAGEWRIGHT_SHUTDOWN_GRACE %s", pause, delay, grace)
 	}
 	// A calculation must end before the write deadline cuts the answer.
 	ct, err1 := time.ParseDuration(cm.Data["STAGEWRIGHT_COMPUTE_TIMEOUT"])
@@ -542,6 +543,7 @@ func TestManifestChecksCatch(t *testing.T) {
 		{"no spread", func(m *manifests) { m.Deployment.Spec.Template.Spec.TopologySpreadConstraints = nil }, "topologySpreadConstraints"},
 		{"short grace", func(m *manifests) { n := int64(25); m.Deployment.Spec.Template.Spec.TerminationGracePeriodSeconds = &n }, "terminationGracePeriodSeconds"},
 		{"long shutdown", func(m *manifests) { m.ConfigMap.Data["STAGEWRIGHT_SHUTDOWN_GRACE"] = "30s" }, "terminationGracePeriodSeconds"},
+		{"long shutdown delay", func(m *manifests) { m.ConfigMap.Data["STAGEWRIGHT_SHUTDOWN_DELAY"] = "10s" }, "terminationGracePeriodSeconds"},
 		{"no shutdown grace", func(m *manifests) { delete(m.ConfigMap.Data, "STAGEWRIGHT_SHUTDOWN_GRACE") }, "STAGEWRIGHT_SHUTDOWN_GRACE must be set"},
 		{"compute past write", func(m *manifests) { m.ConfigMap.Data["STAGEWRIGHT_COMPUTE_TIMEOUT"] = "1m" }, "STAGEWRIGHT_COMPUTE_TIMEOUT"},
 		{"loopback in pod", func(m *manifests) { m.ConfigMap.Data["STAGEWRIGHT_ADDR"] = "127.0.0.1:8080" }, "STAGEWRIGHT_ADDR"},

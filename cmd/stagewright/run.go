@@ -32,7 +32,7 @@ func run(ctx context.Context, args []string, getenv func(string) string, stdout,
 	ver, rev := buildVersion()
 	var ready atomic.Bool
 	gin.SetMode(gin.ReleaseMode)
-	router, err := api.NewRouter(service.New(), api.Options{
+	router, err := api.NewRouter(service.New(service.WithVersion(ver)), api.Options{
 		Spec: openapi.Swagger2(), Log: log, Tokens: cfg.Tokens, MaxBodyBytes: cfg.MaxBodyBytes,
 		ComputeTimeout: cfg.ComputeTimeout, MaxInFlight: cfg.MaxInFlight, CORSOrigins: cfg.CORSOrigins,
 		Version: ver, Commit: rev, Ready: ready.Load,
