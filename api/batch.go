@@ -19,18 +19,18 @@ type BatchRequest struct {
 
 // BatchResponse holds one result per duty, in request order.
 type BatchResponse struct {
-	Results []BatchItem `json:"results"`
+	Results []BatchItem `json:"results" validate:"required"`
 	// Succeeded and Failed count the results by outcome.
-	Succeeded int `json:"succeeded"`
-	Failed    int `json:"failed"`
+	Succeeded int `json:"succeeded" validate:"required"`
+	Failed    int `json:"failed" validate:"required"`
 }
 
 // BatchItem is the outcome of one duty: a result (status 200) or a problem.
 type BatchItem struct {
 	// Index is the duty's position in the request, from 0.
-	Index int `json:"index"`
+	Index int `json:"index" validate:"required"`
 	// Status is the HTTP status the duty would have had on its own.
-	Status  int            `json:"status" example:"200"`
+	Status  int            `json:"status" example:"200" validate:"required"`
 	Result  *StageResponse `json:"result,omitempty"`
 	Problem *Problem       `json:"problem,omitempty"`
 }
@@ -45,6 +45,7 @@ type BatchItem struct {
 //	@Param			batch	body		BatchRequest	true	"duty points"
 //	@Success		200		{object}	BatchResponse
 //	@Failure		400		{object}	Problem	"malformed JSON, unknown field, or a duty of the wrong shape"
+//	@Failure		413		{object}	Problem	"body larger than the limit (1 MiB)"
 //	@Failure		500		{object}	Problem
 //	@Router			/v1/stage/size/batch [post]
 func (h stageHandler) sizeBatch(c *gin.Context) {

@@ -12,7 +12,7 @@ import (
 // benchPost measures one POST /v1/stage/size through the router: decoding,
 // validation, unit parsing, the service and the JSON answer.
 func benchPost(b *testing.B, body []byte, status int) {
-	h := newRouter(b)
+	h := plainRouter(b)
 	b.ReportAllocs()
 	b.SetBytes(int64(len(body)))
 	for b.Loop() {

@@ -31,7 +31,7 @@ func FuzzPostStage(f *testing.F) {
 	for _, s := range []string{demoDuty, ``, `null`, `{}`, `[]`, `"x"`, `{"speed": "1e400 rpm"}`, `{"gas": {"composition": {"CH4": 1e308}}}`} {
 		f.Add([]byte(s))
 	}
-	h := newRouter(f)
+	h := plainRouter(f)
 	f.Fuzz(func(t *testing.T, body []byte) {
 		w := postStage(h, string(body))
 		checkAnswer(t, w.Code, w.Header().Get("Content-Type"), w.Body.Bytes())
@@ -47,7 +47,7 @@ func FuzzStageNumbers(f *testing.F) {
 	f.Add(98000.0, 305.15, 2.4, 2.8, 24000.0, 0.84, 35.0, 0.88, 1.03, 0.35, 140.0, 95.0, 1006.0, 1.4)
 	f.Add(1.0, 1.0, 1.0000001, 1e-9, 1.0, 1e-9, 0.0, 1e-9, 1.0, 0.0, 1e-3, 1e-3, 1.0, 1.0000001)
 	f.Add(1e8, 3000.0, 100.0, 1e6, 1e6, 1.0, 75.0, 1.0, 2.0, 0.9499, 1e4, 1e4, 1e5, 5.0/3)
-	h := newRouter(f)
+	h := plainRouter(f)
 	f.Fuzz(func(t *testing.T, p1, t1, pr, mdot, speed, eta, beta, slip, pif, hub, cm1, cr2, cp, gamma float64) {
 		for _, v := range []float64{p1, t1, pr, mdot, speed, eta, beta, slip, pif, hub, cm1, cr2, cp, gamma} {
 			if math.IsNaN(v) || math.IsInf(v, 0) {

@@ -143,6 +143,7 @@ type gasHandler struct {
 //	@Success		200		{object}	PropertiesResponse
 //	@Failure		400		{object}	Problem	"malformed JSON, unknown field or bad composition"
 //	@Failure		422		{object}	Problem	"state outside the model"
+//	@Failure		413		{object}	Problem	"body larger than the limit (1 MiB)"
 //	@Failure		500		{object}	Problem
 //	@Router			/v1/gas/properties [post]
 func (h gasHandler) properties(c *gin.Context) {

@@ -10,27 +10,27 @@ type StageResponse struct {
 	// StandardVolumeFlow is the flow at reference conditions, m3/s.
 	StandardVolumeFlow StandardFlowsOut `json:"standard_volume_flow"`
 	// Speed is the rotational speed, rev/min.
-	Speed     float64      `json:"speed" format:"double" example:"21000"`
+	Speed     float64      `json:"speed" format:"double" example:"21000" validate:"required"`
 	Discharge DischargeOut `json:"discharge"`
 	// Work is the actual specific work h02 − h01, J/kg.
 	Work         float64         `json:"work" format:"double" example:"150000"`
 	Head         HeadOut         `json:"head"`
 	Efficiency   EfficiencyOut   `json:"efficiency"`
-	Power        PowerOut        `json:"power"`
+	Power        PowerOut        `json:"power" validate:"required"`
 	Velocities   VelocitiesOut   `json:"velocities"`
-	Geometry     GeometryOut     `json:"geometry"`
+	Geometry     GeometryOut     `json:"geometry" validate:"required"`
 	Coefficients CoefficientsOut `json:"coefficients"`
 	Stations     StationsOut     `json:"stations"`
 	Polytropic   PolytropicOut   `json:"polytropic_methods"`
 	// Verdict is the worst severity of the limit checks: "within-limits", "caution" or "critical".
-	Verdict string `json:"verdict" enums:"within-limits,caution,critical" example:"caution"`
+	Verdict string `json:"verdict" enums:"within-limits,caution,critical" example:"caution" validate:"required"`
 	// Limits lists every limit checked, with its margin.
 	Limits []LimitOut `json:"limits"`
 	// Warnings lists the limits past their caution level and other notices.
 	Warnings   []WarningOut  `json:"warnings"`
 	Provenance ProvenanceOut `json:"provenance"`
 	// Cautions says what the numbers are and defers to the manufacturer, the standards and licensed engineering practice.
-	Cautions string `json:"cautions"`
+	Cautions string `json:"cautions" validate:"required"`
 }
 
 // StandardFlowsOut is the flow as standard volume, m3/s, at each reference
@@ -71,7 +71,7 @@ type PowerOut struct {
 	// Gas is mass flow × work, W.
 	Gas float64 `json:"gas" format:"double" example:"480000"`
 	// Shaft is gas power over the mechanical efficiency, W.
-	Shaft float64 `json:"shaft" format:"double" example:"490000"`
+	Shaft float64 `json:"shaft" format:"double" example:"490000" validate:"required"`
 	// MechanicalEfficiency used, dimensionless.
 	MechanicalEfficiency float64 `json:"mechanical_efficiency" format:"double" example:"0.98"`
 	// DriverRating is the least driver rating: shaft power × driver_margin, W.
@@ -117,7 +117,7 @@ type VelocitiesOut struct {
 
 // GeometryOut is the sized flow path, m.
 type GeometryOut struct {
-	TipDiameter float64 `json:"tip_diameter" format:"double" example:"0.38"`
+	TipDiameter float64 `json:"tip_diameter" format:"double" example:"0.38" validate:"required"`
 	// InletDiameter is D1 (radial inlet) or the eye tip diameter (axial eye), m.
 	InletDiameter float64 `json:"inlet_diameter" format:"double"`
 	// InletWidth is the radial-inlet blade width from continuity, or the blade height at the eye, m.
@@ -256,6 +256,6 @@ type DefaultOut struct {
 
 // Health is the answer of GET /healthz.
 type Health struct {
-	Status       string `json:"status" example:"ok"`
-	ModelVersion string `json:"model_version" example:"stagewright-physics 0.2.0"`
+	Status       string `json:"status" example:"ok" validate:"required"`
+	ModelVersion string `json:"model_version" example:"stagewright-physics 0.2.0" validate:"required"`
 }

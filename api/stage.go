@@ -33,6 +33,7 @@ type stageHandler struct {
 //	@Success		200		{object}	StageResponse
 //	@Failure		400		{object}	Problem	"malformed JSON, unknown field, missing or wrongly shaped field"
 //	@Failure		422		{object}	Problem	"physically impossible duty or a state outside the gas model"
+//	@Failure		413		{object}	Problem	"body larger than the limit (1 MiB)"
 //	@Failure		500		{object}	Problem
 //	@Router			/v1/stage/size [post]
 func (h stageHandler) size(c *gin.Context) {
