@@ -47,6 +47,7 @@ type BatchItem struct {
 //	@Failure		400		{object}	Problem	"malformed JSON, unknown field, or a duty of the wrong shape"
 //	@Failure		413		{object}	Problem	"body larger than the limit (1 MiB)"
 //	@Failure		500		{object}	Problem
+//	@ID			sizeStageBatch
 //	@Router			/v1/stage/size/batch [post]
 func (h stageHandler) sizeBatch(c *gin.Context) {
 	var req BatchRequest

@@ -5,12 +5,14 @@ import (
 	"context"
 	"encoding/json"
 	"errors"
+	"flag"
 	"fmt"
 	"io"
 	"log/slog"
 	"mime"
 	"net/http"
 	"net/http/httptest"
+	"os"
 	"strconv"
 	"strings"
 	"testing"
@@ -323,6 +325,32 @@ func TestContractCatchesWrongAnswers(t *testing.T) {
 			require.Error(t, err)
 			require.Contains(t, err.Error(), tc.want)
 		})
+	}
+}
+
+// writeOpenAPI3 rewrites openapi/openapi3.json from the served document.
+var writeOpenAPI3 = flag.Bool("write-openapi3", false, "rewrite openapi/openapi3.json from the served OpenAPI 3 document")
+
+// openAPI3File is the committed copy of the served OpenAPI 3 document, the
+// input of the generated client (openapi/client).
+const openAPI3File = "../openapi/openapi3.json"
+
+// TestOpenAPI3FileCurrent: the committed openapi/openapi3.json is exactly
+// what GET /openapi.json serves. Regenerate with
+//
+//	go test ./api -run TestOpenAPI3FileCurrent -write-openapi3
+func TestOpenAPI3FileCurrent(t *testing.T) {
+	w := do(plainRouter(t), http.MethodGet, "/openapi.json", "")
+	require.Equal(t, http.StatusOK, w.Code)
+	served := append(w.Body.Bytes(), '\n')
+	if *writeOpenAPI3 {
+		require.NoError(t, os.WriteFile(openAPI3File, served, 0o644))
+	}
+	committed, err := os.ReadFile(openAPI3File)
+	require.NoError(t, err)
+	if !bytes.Equal(served, committed) {
+		t.Fatal("openapi/openapi3.json differs from the served document; regenerate: " +
+			"go test ./api -run TestOpenAPI3FileCurrent -write-openapi3 && go generate ./openapi/client")
 	}
 }
 

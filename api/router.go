@@ -54,6 +54,7 @@ func NewRouter(svc Services, log *slog.Logger, spec []byte) (*gin.Engine, error)
 //	@Tags		operations
 //	@Produce	json
 //	@Success	200	{object}	Health
+//	@ID		health
 //	@Router		/healthz [get]
 func health(c *gin.Context) {
 	c.JSON(http.StatusOK, Health{Status: "ok", ModelVersion: service.ModelVersion})

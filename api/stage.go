@@ -35,6 +35,7 @@ type stageHandler struct {
 //	@Failure		422		{object}	Problem	"physically impossible duty or a state outside the gas model"
 //	@Failure		413		{object}	Problem	"body larger than the limit (1 MiB)"
 //	@Failure		500		{object}	Problem
+//	@ID			sizeStage
 //	@Router			/v1/stage/size [post]
 func (h stageHandler) size(c *gin.Context) {
 	var req StageRequest
