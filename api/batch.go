@@ -38,7 +38,7 @@ type BatchItem struct {
 // sizeBatch sizes many duties.
 //
 //	@Summary		Size many stages in one call
-//	@Description	Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a shape error in any duty rejects the whole batch with a 400 whose pointers start with /duties/INDEX.
+//	@Description	Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own.
 //	@Tags			stage
 //	@Accept			json
 //	@Produce		json

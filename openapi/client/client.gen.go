@@ -2291,7 +2291,7 @@ type ClientInterface interface {
 
 	// SizeStageBatchWithBody Size many stages in one call
 	//
-	// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a shape error in any duty rejects the whole batch with a 400 whose pointers start with /duties/INDEX.
+	// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own.
 	//
 	// Takes any type of body and a specified content type.
 	//
@@ -2300,7 +2300,7 @@ type ClientInterface interface {
 
 	// SizeStageBatch Size many stages in one call
 	//
-	// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a shape error in any duty rejects the whole batch with a 400 whose pointers start with /duties/INDEX.
+	// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own.
 	//
 	// Takes a body of the `application/json` content type.
 	//
@@ -2418,7 +2418,7 @@ func (c *Client) SizeStage(ctx context.Context, body SizeStageJSONRequestBody, r
 
 // SizeStageBatchWithBody Size many stages in one call
 //
-// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a shape error in any duty rejects the whole batch with a 400 whose pointers start with /duties/INDEX.
+// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own.
 //
 // Takes any type of body and a specified content type.
 //
@@ -2437,7 +2437,7 @@ func (c *Client) SizeStageBatchWithBody(ctx context.Context, contentType string,
 
 // SizeStageBatch Size many stages in one call
 //
-// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a shape error in any duty rejects the whole batch with a 400 whose pointers start with /duties/INDEX.
+// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own.
 //
 // Takes a body of the `application/json` content type.
 //
@@ -2726,7 +2726,7 @@ type ClientWithResponsesInterface interface {
 
 	// SizeStageBatchWithBodyWithResponse Size many stages in one call
 	//
-	// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a shape error in any duty rejects the whole batch with a 400 whose pointers start with /duties/INDEX.
+	// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own.
 	//
 	// Takes any type of body and a specified content type, and returns a wrapper object for the known response body format(s).
 	//
@@ -2735,7 +2735,7 @@ type ClientWithResponsesInterface interface {
 
 	// SizeStageBatchWithResponse Size many stages in one call
 	//
-	// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a shape error in any duty rejects the whole batch with a 400 whose pointers start with /duties/INDEX.
+	// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own.
 	//
 	// Takes a body of the `application/json` content type, and returns a wrapper object for the known response body format(s).
 	//
@@ -3115,7 +3115,7 @@ func (c *ClientWithResponses) SizeStageWithResponse(ctx context.Context, body Si
 
 // SizeStageBatchWithBodyWithResponse Size many stages in one call
 //
-// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a shape error in any duty rejects the whole batch with a 400 whose pointers start with /duties/INDEX.
+// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own.
 //
 // Takes any type of body and a specified content type, and returns a wrapper object for the known response body format(s).
 //
@@ -3130,7 +3130,7 @@ func (c *ClientWithResponses) SizeStageBatchWithBodyWithResponse(ctx context.Con
 
 // SizeStageBatchWithResponse Size many stages in one call
 //
-// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a shape error in any duty rejects the whole batch with a 400 whose pointers start with /duties/INDEX.
+// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own.
 //
 // Takes a body of the `application/json` content type, and returns a wrapper object for the known response body format(s).
 //
