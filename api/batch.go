@@ -21,18 +21,18 @@ type BatchRequest struct {
 
 // BatchResponse holds one result per duty, in request order.
 type BatchResponse struct {
-	Results []BatchItem `json:"results"`
+	Results []BatchItem `json:"results" validate:"required"`
 	// Succeeded and Failed count the results by outcome.
-	Succeeded int `json:"succeeded"`
-	Failed    int `json:"failed"`
+	Succeeded int `json:"succeeded" validate:"required"`
+	Failed    int `json:"failed" validate:"required"`
 }
 
 // BatchItem is the outcome of one duty: a result (status 200) or a problem.
 type BatchItem struct {
 	// Index is the duty's position in the request, from 0.
-	Index int `json:"index"`
+	Index int `json:"index" validate:"required"`
 	// Status is the HTTP status the duty would have had on its own.
-	Status  int            `json:"status" example:"200"`
+	Status  int            `json:"status" example:"200" validate:"required"`
 	Result  *StageResponse `json:"result,omitempty"`
 	Problem *Problem       `json:"problem,omitempty"`
 }
@@ -40,7 +40,7 @@ type BatchItem struct {
 // sizeBatch sizes many duties.
 //
 //	@Summary		Size many stages in one call
-//	@Description	Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a shape error in any duty rejects the whole batch with a 400 whose pointers start with /duties/INDEX.
+//	@Description	Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own.
 //	@Tags			stage
 //	@Accept			json
 //	@Produce		json
@@ -52,6 +52,7 @@ type BatchItem struct {
 //	@Failure		500		{object}	Problem
 //	@Failure		503		{object}	Problem	"overloaded (retry after the Retry-After header's seconds) or cancelled"
 //	@Failure		504		{object}	Problem	"the computation passed the service's compute deadline"
+//	@ID			sizeStageBatch
 //	@Router			/v1/stage/size/batch [post]
 func (h stageHandler) sizeBatch(c *gin.Context) {
 	var req BatchRequest

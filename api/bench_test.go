@@ -6,23 +6,41 @@ import (
 	"net/http/httptest"
 	"os"
 	"path/filepath"
+	"strings"
 	"testing"
 )
 
-// benchPost measures one POST /v1/stage/size through the router: decoding,
-// validation, unit parsing, the service and the JSON answer.
-func benchPost(b *testing.B, body []byte, status int) {
-	h := newRouter(b)
+// benchRequest measures one request through the production router (no
+// contract check): decoding, validation, unit parsing, the service and the
+// JSON answer; b.ReportAllocs gives the allocations per request.
+func benchRequest(b *testing.B, method, target string, body []byte, status int) {
+	h := plainRouter(b)
 	b.ReportAllocs()
 	b.SetBytes(int64(len(body)))
 	for b.Loop() {
-		req := httptest.NewRequest(http.MethodPost, "/v1/stage/size", bytes.NewReader(body))
+		req := httptest.NewRequest(method, target, bytes.NewReader(body))
+		if body != nil {
+			req.Header.Set("Content-Type", "application/json")
+		}
 		w := httptest.NewRecorder()
 		h.ServeHTTP(w, req)
 		if w.Code != status {
 			b.Fatalf("status %d: %s", w.Code, w.Body.String())
 		}
 	}
+}
+
+// benchPost measures one POST /v1/stage/size.
+func benchPost(b *testing.B, body []byte, status int) {
+	benchRequest(b, http.MethodPost, "/v1/stage/size", body, status)
+}
+
+func readDuty(b *testing.B, name string) []byte {
+	body, err := os.ReadFile(filepath.Join(stagesDir, name))
+	if err != nil {
+		b.Fatal(err)
+	}
+	return body
 }
 
 // BenchmarkPostStage: the instrument-air demo duty (ideal gas, constant cp).
@@ -33,14 +51,48 @@ func BenchmarkPostStage(b *testing.B) {
 // BenchmarkPostStageRealGas: the Peng-Robinson fuel-gas demo duty with
 // strings with units.
 func BenchmarkPostStageRealGas(b *testing.B) {
-	body, err := os.ReadFile(filepath.Join(stagesDir, "kestrel-fuel-gas-booster.in.json"))
-	if err != nil {
-		b.Fatal(err)
-	}
-	benchPost(b, body, http.StatusOK)
+	benchPost(b, readDuty(b, "kestrel-fuel-gas-booster.in.json"), http.StatusOK)
 }
 
 // BenchmarkPostStageProblem: a duty with a misspelt field, answered 400.
 func BenchmarkPostStageProblem(b *testing.B) {
 	benchPost(b, bytes.Replace([]byte(demoDuty), []byte(`"pressure": 98000`), []byte(`"presure": 98000`), 1), http.StatusBadRequest)
+}
+
+// BenchmarkPostStageUnprocessable: a well-formed duty the physics refuses
+// (polytropic efficiency 1.2), answered 422.
+func BenchmarkPostStageUnprocessable(b *testing.B) {
+	benchPost(b, bytes.Replace([]byte(demoDuty), []byte(`"polytropic": 0.84`), []byte(`"polytropic": 1.2`), 1), http.StatusUnprocessableEntity)
+}
+
+// BenchmarkPostBatch: the five demo duties twice in one batch (10 duties;
+// ns/op is per batch).
+func BenchmarkPostBatch(b *testing.B) {
+	files, err := filepath.Glob(filepath.Join(stagesDir, "*.in.json"))
+	if err != nil || len(files) == 0 {
+		b.Fatal("no demo duties", err)
+	}
+	var duties []string
+	for range 2 {
+		for _, f := range files {
+			duties = append(duties, string(readDuty(b, filepath.Base(f))))
+		}
+	}
+	benchRequest(b, http.MethodPost, "/v1/stage/size/batch", []byte(`{"duties":[`+strings.Join(duties, ",")+`]}`), http.StatusOK)
+}
+
+// BenchmarkGasProperties: a natural gas under Peng-Robinson at one state.
+func BenchmarkGasProperties(b *testing.B) {
+	body := `{"gas":{"model":"peng-robinson","composition":{"CH4":0.9,"C2H6":0.06,"C3H8":0.02,"N2":0.01,"CO2":0.01}},"temperature":"35 degC","pressure":"50 bara"}`
+	benchRequest(b, http.MethodPost, "/v1/gas/properties", []byte(body), http.StatusOK)
+}
+
+// BenchmarkGasComponents: the catalogue (GET, no body).
+func BenchmarkGasComponents(b *testing.B) {
+	benchRequest(b, http.MethodGet, "/v1/gas/components", nil, http.StatusOK)
+}
+
+// BenchmarkHealthz: the trivial endpoint, the floor of the HTTP path.
+func BenchmarkHealthz(b *testing.B) {
+	benchRequest(b, http.MethodGet, "/healthz", nil, http.StatusOK)
 }

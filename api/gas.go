@@ -33,97 +33,97 @@ type PropertiesRequest struct {
 
 // PropertiesResponse is the state of the gas.
 type PropertiesResponse struct {
-	Model string `json:"model" example:"peng-robinson"`
+	Model string `json:"model" example:"peng-robinson" validate:"required"`
 	// Temperature, K.
-	Temperature float64 `json:"temperature" format:"double"`
+	Temperature float64 `json:"temperature" format:"double" validate:"required"`
 	// Pressure, Pa absolute.
-	Pressure float64 `json:"pressure" format:"double"`
+	Pressure float64 `json:"pressure" format:"double" validate:"required"`
 	// Density, kg/m3.
-	Density float64 `json:"density" format:"double"`
+	Density float64 `json:"density" format:"double" validate:"required"`
 	// Compressibility is Z = p/(ρ R T).
-	Compressibility float64 `json:"compressibility" format:"double"`
+	Compressibility float64 `json:"compressibility" format:"double" validate:"required"`
 	// MolarMass, kg/mol.
-	MolarMass float64 `json:"molar_mass" format:"double"`
+	MolarMass float64 `json:"molar_mass" format:"double" validate:"required"`
 	// Enthalpy, J/kg (see reference_state).
-	Enthalpy float64 `json:"enthalpy" format:"double"`
+	Enthalpy float64 `json:"enthalpy" format:"double" validate:"required"`
 	// Entropy, J/(kg K) (see reference_state).
-	Entropy float64 `json:"entropy" format:"double"`
+	Entropy float64 `json:"entropy" format:"double" validate:"required"`
 	// Cp, J/(kg K).
-	Cp float64 `json:"cp" format:"double"`
+	Cp float64 `json:"cp" format:"double" validate:"required"`
 	// Cv, J/(kg K).
-	Cv float64 `json:"cv" format:"double"`
+	Cv float64 `json:"cv" format:"double" validate:"required"`
 	// IsentropicExponent is −(v/p)(∂p/∂v)_T · cp/cv.
-	IsentropicExponent float64 `json:"isentropic_exponent" format:"double"`
+	IsentropicExponent float64 `json:"isentropic_exponent" format:"double" validate:"required"`
 	// SpeedOfSound, m/s.
-	SpeedOfSound float64 `json:"speed_of_sound" format:"double"`
+	SpeedOfSound float64 `json:"speed_of_sound" format:"double" validate:"required"`
 	// JouleThomson is (∂T/∂p)_h, K/Pa.
-	JouleThomson float64 `json:"joule_thomson" format:"double"`
+	JouleThomson float64 `json:"joule_thomson" format:"double" validate:"required"`
 	// SchultzX is (T/v)(∂v/∂T)_p − 1 (0 for an ideal gas).
-	SchultzX float64 `json:"schultz_x" format:"double"`
+	SchultzX float64 `json:"schultz_x" format:"double" validate:"required"`
 	// SchultzY is −(p/v)(∂v/∂p)_T (1 for an ideal gas).
-	SchultzY float64 `json:"schultz_y" format:"double"`
+	SchultzY float64 `json:"schultz_y" format:"double" validate:"required"`
 	// Phase is "gas", "supercritical", "liquid" or "two-phase".
-	Phase string `json:"phase" enums:"gas,supercritical,liquid,two-phase"`
+	Phase string `json:"phase" enums:"gas,supercritical,liquid,two-phase" validate:"required"`
 	// WaterDewPoint at this pressure, K (absent without water).
 	WaterDewPoint *float64 `json:"water_dew_point,omitempty" format:"double"`
 	// Composition is the normalised mole-fraction composition.
-	Composition []ComponentFraction `json:"composition"`
+	Composition []ComponentFraction `json:"composition" validate:"required"`
 	// Notes on validity and phase.
-	Notes          []string      `json:"notes"`
-	ReferenceState string        `json:"reference_state"`
-	Provenance     ProvenanceOut `json:"provenance"`
-	Cautions       string        `json:"cautions"`
+	Notes          []string      `json:"notes" validate:"required"`
+	ReferenceState string        `json:"reference_state" validate:"required"`
+	Provenance     ProvenanceOut `json:"provenance" validate:"required"`
+	Cautions       string        `json:"cautions" validate:"required"`
 }
 
 // ComponentFraction is one component's mole fraction.
 type ComponentFraction struct {
-	Component    string  `json:"component" example:"methane"`
-	MoleFraction float64 `json:"mole_fraction" format:"double" example:"0.9"`
+	Component    string  `json:"component" example:"methane" validate:"required"`
+	MoleFraction float64 `json:"mole_fraction" format:"double" example:"0.9" validate:"required"`
 }
 
 // ComponentsResponse is the gas catalogue.
 type ComponentsResponse struct {
-	Components []ComponentOut `json:"components"`
-	Mixtures   []MixtureOut   `json:"mixtures"`
+	Components []ComponentOut `json:"components" validate:"required"`
+	Mixtures   []MixtureOut   `json:"mixtures" validate:"required"`
 }
 
 // ComponentOut is one catalogue component.
 type ComponentOut struct {
-	ID      string   `json:"id" example:"methane"`
-	Formula string   `json:"formula" example:"CH4"`
-	Names   []string `json:"names"`
+	ID      string   `json:"id" example:"methane" validate:"required"`
+	Formula string   `json:"formula" example:"CH4" validate:"required"`
+	Names   []string `json:"names" validate:"required"`
 	// MolarMass, kg/mol.
-	MolarMass float64 `json:"molar_mass" format:"double"`
+	MolarMass float64 `json:"molar_mass" format:"double" validate:"required"`
 	// CriticalTemperature, K.
-	CriticalTemperature float64 `json:"critical_temperature" format:"double"`
+	CriticalTemperature float64 `json:"critical_temperature" format:"double" validate:"required"`
 	// CriticalPressure, Pa.
-	CriticalPressure float64 `json:"critical_pressure" format:"double"`
+	CriticalPressure float64 `json:"critical_pressure" format:"double" validate:"required"`
 	// AcentricFactor, dimensionless.
-	AcentricFactor float64 `json:"acentric_factor" format:"double"`
+	AcentricFactor float64 `json:"acentric_factor" format:"double" validate:"required"`
 	// HeatCapacity lists the ideal-gas cp correlations with their ranges.
-	HeatCapacity []CpRangeOut `json:"heat_capacity"`
+	HeatCapacity []CpRangeOut `json:"heat_capacity" validate:"required"`
 	// HeatCapacityBlend names the constituents of a pseudo-component's cp.
 	HeatCapacityBlend []ComponentFraction `json:"heat_capacity_blend,omitempty"`
-	Sources           []string            `json:"sources"`
+	Sources           []string            `json:"sources" validate:"required"`
 }
 
 // CpRangeOut is one ideal-gas cp correlation range.
 type CpRangeOut struct {
 	// Form is "shomate" (NIST, cp in J/(mol K) of t = T/1000) or "poly-r" (cp/R polynomial in T).
-	Form string `json:"form" enums:"shomate,poly-r"`
+	Form string `json:"form" enums:"shomate,poly-r" validate:"required"`
 	// TLow and THigh bound the range, K.
-	TLow         float64   `json:"t_low" format:"double"`
-	THigh        float64   `json:"t_high" format:"double"`
-	Coefficients []float64 `json:"coefficients"`
-	Source       string    `json:"source"`
+	TLow         float64   `json:"t_low" format:"double" validate:"required"`
+	THigh        float64   `json:"t_high" format:"double" validate:"required"`
+	Coefficients []float64 `json:"coefficients" validate:"required"`
+	Source       string    `json:"source" validate:"required"`
 }
 
 // MixtureOut is a named mixture.
 type MixtureOut struct {
-	ID        string              `json:"id" example:"dry-air"`
-	Names     []string            `json:"names"`
-	Fractions []ComponentFraction `json:"fractions"`
-	Source    string              `json:"source"`
+	ID        string              `json:"id" example:"dry-air" validate:"required"`
+	Names     []string            `json:"names" validate:"required"`
+	Fractions []ComponentFraction `json:"fractions" validate:"required"`
+	Source    string              `json:"source" validate:"required"`
 }
 
 type gasHandler struct {
@@ -148,6 +148,7 @@ type gasHandler struct {
 //	@Failure		500		{object}	Problem
 //	@Failure		503		{object}	Problem	"overloaded (retry after the Retry-After header's seconds) or cancelled"
 //	@Failure		504		{object}	Problem	"the computation passed the service's compute deadline"
+//	@ID			gasProperties
 //	@Router			/v1/gas/properties [post]
 func (h gasHandler) properties(c *gin.Context) {
 	var req PropertiesRequest
@@ -210,6 +211,7 @@ func (h gasHandler) properties(c *gin.Context) {
 //	@Success		200	{object}	ComponentsResponse
 //	@Failure		401	{object}	Problem	"no valid bearer token (when the service is configured with tokens)"
 //	@Failure		503	{object}	Problem	"overloaded (retry after the Retry-After header's seconds)"
+//	@ID				gasComponents
 //	@Router			/v1/gas/components [get]
 func (h gasHandler) components(c *gin.Context) {
 	out := ComponentsResponse{Components: []ComponentOut{}, Mixtures: []MixtureOut{}}

@@ -11,10 +11,6 @@ import (
 	"github.com/gin-gonic/gin"
 	"github.com/stretchr/testify/assert"
 	"github.com/stretchr/testify/require"
-
-	"stagewright/api"
-	"stagewright/openapi"
-	"stagewright/service"
 )
 
 // demoDuty is the instrument-air duty of the invented demo scenario (the
@@ -63,12 +59,13 @@ func TestMain(m *testing.M) {
 	os.Exit(m.Run())
 }
 
-// newRouter is the production router over the real service, logging nowhere.
+// newRouter is the production router over the real service, logging
+// nowhere, with every exchange validated against the OpenAPI 3 document it
+// serves (contract_test.go): a response off the contract fails tb.
 func newRouter(tb testing.TB) http.Handler {
 	tb.Helper()
-	r, err := api.NewRouter(service.New(), api.Options{Spec: openapi.Swagger2()})
-	require.NoError(tb, err)
-	return r
+	h := plainRouter(tb)
+	return checked{h: h, k: servedContract(tb, h), tb: tb}
 }
 
 // do serves one request through h.
@@ -198,5 +195,5 @@ func requireProblem(tb testing.TB, w *httptest.ResponseRecorder, status int, kin
 
 // newRouterWith builds the router over a given Swagger 2.0 document.
 func newRouterWith(spec []byte) (http.Handler, error) {
-	return api.NewRouter(service.New(), api.Options{Spec: spec})
+	return buildRouter(spec)
 }

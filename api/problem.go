@@ -21,9 +21,9 @@ const problemBase = "https://stagewright.invalid/problems/"
 
 // Problem is an RFC 9457 problem detail with the field errors extension.
 type Problem struct {
-	Type     string         `json:"type" example:"https://stagewright.invalid/problems/invalid-request"`
-	Title    string         `json:"title" example:"Request failed validation"`
-	Status   int            `json:"status" example:"400"`
+	Type     string         `json:"type" example:"https://stagewright.invalid/problems/invalid-request" validate:"required"`
+	Title    string         `json:"title" example:"Request failed validation" validate:"required"`
+	Status   int            `json:"status" example:"400" validate:"required"`
 	Detail   string         `json:"detail,omitempty" example:"1 field is wrong; see errors"`
 	Instance string         `json:"instance,omitempty" example:"/v1/stage/size"`
 	Errors   []FieldProblem `json:"errors,omitempty"`
@@ -34,8 +34,8 @@ type Problem struct {
 
 // FieldProblem names one offending field by its JSON pointer (RFC 6901).
 type FieldProblem struct {
-	Pointer string `json:"pointer" example:"/suction/pressure"`
-	Detail  string `json:"detail" example:"suction pressure is required (Pa absolute)"`
+	Pointer string `json:"pointer" example:"/suction/pressure" validate:"required"`
+	Detail  string `json:"detail" example:"suction pressure is required (Pa absolute)" validate:"required"`
 }
 
 // errBadBody marks a body that is not JSON or not of the request's shape.

@@ -137,6 +137,7 @@ func NewRouter(svc Services, opts Options) (*gin.Engine, error) {
 //	@Tags		operations
 //	@Produce	json
 //	@Success	200	{object}	Health
+//	@ID		health
 //	@Router		/healthz [get]
 func health(c *gin.Context) {
 	c.JSON(http.StatusOK, Health{Status: "ok", ModelVersion: service.ModelVersion})

@@ -38,6 +38,7 @@ type stageHandler struct {
 //	@Failure		500		{object}	Problem
 //	@Failure		503		{object}	Problem	"overloaded (retry after the Retry-After header's seconds) or cancelled"
 //	@Failure		504		{object}	Problem	"the computation passed the service's compute deadline"
+//	@ID			sizeStage
 //	@Router			/v1/stage/size [post]
 func (h stageHandler) size(c *gin.Context) {
 	var req StageRequest

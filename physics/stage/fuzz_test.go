@@ -2,6 +2,8 @@ package stage_test
 
 import (
 	"math"
+	"reflect"
+	"strconv"
 	"testing"
 
 	"stagewright/physics"
@@ -43,6 +45,9 @@ func FuzzSize(f *testing.F) {
 		if err != nil {
 			return
 		}
+		if bad := nonFinite(reflect.ValueOf(got), "result"); bad != "" {
+			t.Fatalf("non-finite %s for %+v %+v %+v", bad, d, imp, in)
+		}
 		g, v := got.Geometry, got.Velocities
 		for _, x := range []float64{float64(g.TipDiameter), float64(g.InletDiameter), float64(g.InletWidth), float64(g.ExitWidth),
 			float64(v.TipSpeed), float64(got.Exit.Static.Density), float64(got.Inlet.Static.Density),
@@ -59,4 +64,33 @@ func FuzzSize(f *testing.F) {
 			t.Fatalf("eye %v not smaller than the impeller %v", g.InletDiameter, g.TipDiameter)
 		}
 	})
+}
+
+// nonFinite names the first NaN or infinite float in v (structs, arrays,
+// slices and pointers walked; interfaces such as the gas model skipped),
+// or returns "".
+func nonFinite(v reflect.Value, path string) string {
+	switch v.Kind() {
+	case reflect.Float32, reflect.Float64:
+		if f := v.Float(); math.IsNaN(f) || math.IsInf(f, 0) {
+			return path + " = " + strconv.FormatFloat(f, 'g', -1, 64)
+		}
+	case reflect.Struct:
+		for i := range v.NumField() {
+			if bad := nonFinite(v.Field(i), path+"."+v.Type().Field(i).Name); bad != "" {
+				return bad
+			}
+		}
+	case reflect.Array, reflect.Slice:
+		for i := range v.Len() {
+			if bad := nonFinite(v.Index(i), path+"["+strconv.Itoa(i)+"]"); bad != "" {
+				return bad
+			}
+		}
+	case reflect.Pointer:
+		if !v.IsNil() {
+			return nonFinite(v.Elem(), path)
+		}
+	}
+	return ""
 }
