@@ -276,9 +276,10 @@ type solver struct {
 
 	// The least-shroud-Mach eye depends only on the speed (the suction
 	// state, flow, hub ratio and prewhirl are fixed), so it is found once
-	// per speed and then passed as a given eye.
+	// per speed; later sizings at that speed pass its meridional velocity,
+	// from which continuity gives back the same eye in one static state.
 	eyeSpeed physics.RevPerMin
-	eyeTip   physics.Meter
+	eyeCm    physics.MeterPerS
 }
 
 // Convergence of the joint iteration.
@@ -320,9 +321,9 @@ func (sv *solver) duty(comp path.Result, n physics.RevPerMin) stage.Duty {
 // optimum eye found at the same speed.
 func (sv *solver) size(comp path.Result, n physics.RevPerMin) (stage.Sizing, error) {
 	in := sv.inlet
-	cached := in.Kind == stage.InletAxialEye && in.EyeTipDiameter == 0 && in.MeridionalVelocity == 0 && sv.eyeTip > 0 && sv.eyeSpeed == n
+	cached := in.Kind == stage.InletAxialEye && in.EyeTipDiameter == 0 && in.MeridionalVelocity == 0 && sv.eyeCm > 0 && sv.eyeSpeed == n
 	if cached {
-		in.EyeTipDiameter = sv.eyeTip
+		in.MeridionalVelocity = sv.eyeCm
 	}
 	sz, err := stage.Size(sv.duty(comp, n), sv.imp, in)
 	if err != nil {
@@ -332,7 +333,7 @@ func (sv *solver) size(comp path.Result, n physics.RevPerMin) (stage.Sizing, err
 	case cached:
 		sz.Geometry.EyeChoice = stage.EyeMinShroudMach
 	case sz.Geometry.EyeChoice == stage.EyeMinShroudMach:
-		sv.eyeSpeed, sv.eyeTip = n, sz.Geometry.InletDiameter
+		sv.eyeSpeed, sv.eyeCm = n, sz.Velocities.InletMeridional
 	}
 	return sz, nil
 }
