@@ -187,6 +187,54 @@ func FuzzStageNumbers(f *testing.F) {
 	})
 }
 
+// FuzzStageChoices sends duties that leave the speed, the efficiency and
+// the impeller to the service (the joint iteration of service/size.go),
+// with arbitrary finite suction states, ratios, flows and, by mode, a speed
+// target, a tip diameter, a speed step, a backsweep or a prewhirl angle.
+//
+//	go test ./api -run '^$' -fuzz FuzzStageChoices -fuzztime 60s
+func FuzzStageChoices(f *testing.F) {
+	f.Add(1e5, 300.0, 2.5, 3.0, 0, 0.0, 0.0, 0.0)      // everything chosen
+	f.Add(21e5, 318.15, 1.17, 3.9, 1, 0.7, 50.0, 40.0) // specific speed, step
+	f.Add(7.5e5, 298.15, 1.6, 4.0, 2, 0.09, 0.0, 10.0) // flow coefficient, prewhirl
+	f.Add(7.5e5, 298.15, 1.6, 4.0, 3, 0.31, 0.0, 45.0) // tip diameter
+	f.Add(1e5, 300.0, 4.0, 0.05, 0, 0.0, 0.0, 70.0)    // a tiny flow, far backswept
+	h := plainRouter(f)
+	k := servedContract(f, h)
+	f.Fuzz(func(t *testing.T, p1, t1, pr, mdot float64, mode int, target, step, angle float64) {
+		for _, v := range []float64{p1, t1, pr, mdot, target, step, angle} {
+			if math.IsNaN(v) || math.IsInf(v, 0) {
+				return // JSON has no NaN or Inf
+			}
+		}
+		req := map[string]any{
+			"gas":            map[string]any{"model": "ideal-constant", "cp": 1005, "gamma": 1.4},
+			"suction":        map[string]any{"pressure": p1, "temperature": t1},
+			"pressure_ratio": pr,
+			"flow":           map[string]any{"mass": mdot},
+		}
+		switch ((mode % 5) + 5) % 5 {
+		case 1:
+			req["speed_target"] = map[string]any{"specific_speed": target}
+			req["speed_step"] = step
+		case 2:
+			req["speed_target"] = map[string]any{"flow_coefficient": target}
+			req["impeller"] = map[string]any{"inlet": map[string]any{"prewhirl_angle": angle}}
+		case 3:
+			req["tip_diameter"] = target
+			req["impeller"] = map[string]any{"blade_exit_angle": angle}
+		case 4:
+			req["impeller"] = map[string]any{"blade_exit_angle": angle, "slip_model": "stanitz", "blade_count": 5 + int(math.Abs(step))%40}
+		}
+		body, err := json.Marshal(req)
+		if err != nil {
+			t.Fatal(err)
+		}
+		w := fuzzExchange(t, h, k, http.MethodPost, "/v1/stage/size", body)
+		checkAnswer(t, w.Code, w.Header().Get("Content-Type"), w.Body.Bytes(), stageErrors)
+	})
+}
+
 // stageErrors are the error statuses a single duty or state may get.
 var stageErrors = []int{http.StatusBadRequest, http.StatusRequestEntityTooLarge, http.StatusUnprocessableEntity}
 
