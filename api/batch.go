@@ -56,7 +56,7 @@ type BatchItem struct {
 //	@Router			/v1/stage/size/batch [post]
 func (h stageHandler) sizeBatch(c *gin.Context) {
 	var req BatchRequest
-	if err := decodeStrict(c.Request, &req, h.validate); err != nil {
+	if err := decodeStrict(c.Request, &req, h.decoder); err != nil {
 		fail(c, h.log, err)
 		return
 	}

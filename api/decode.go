@@ -30,12 +30,56 @@ func newValidator() *validator.Validate {
 	return v
 }
 
+// requestDecoder holds what strict decoding needs, built once with the
+// router and read-only afterwards: the validator and, for every struct
+// type reachable from the request types, its fields by exact JSON name.
+type requestDecoder struct {
+	validate *validator.Validate
+	fields   map[reflect.Type]map[string]reflect.Type
+}
+
+// newRequestDecoder indexes the fields of the request types reqs (values
+// or pointers of the request structs).
+func newRequestDecoder(reqs ...any) *requestDecoder {
+	d := &requestDecoder{validate: newValidator(), fields: map[reflect.Type]map[string]reflect.Type{}}
+	for _, r := range reqs {
+		d.index(reflect.TypeOf(r))
+	}
+	return d
+}
+
+func (d *requestDecoder) index(t reflect.Type) {
+	for t.Kind() == reflect.Pointer || t.Kind() == reflect.Slice || t.Kind() == reflect.Array || t.Kind() == reflect.Map {
+		t = t.Elem()
+	}
+	if t.Kind() != reflect.Struct || t == quantityType {
+		return
+	}
+	if _, done := d.fields[t]; done {
+		return
+	}
+	m := map[string]reflect.Type{}
+	d.fields[t] = m
+	for i := range t.NumField() {
+		f := t.Field(i)
+		name, _, _ := strings.Cut(f.Tag.Get("json"), ",")
+		if !f.IsExported() || name == "-" {
+			continue
+		}
+		if name == "" {
+			name = f.Name
+		}
+		m[name] = f.Type
+		d.index(f.Type)
+	}
+}
+
 // decodeStrict reads one JSON value into dst (a pointer to a request
 // struct), rejecting malformed JSON, trailing data, unknown or miscased
 // field names (each reported with its JSON pointer) and wrong JSON types,
 // and then runs the validator's shape checks. The body's size is bounded
 // by the bodyLimit middleware; its *http.MaxBytesError is returned as is.
-func decodeStrict(r *http.Request, dst any, v *validator.Validate) error {
+func decodeStrict(r *http.Request, dst any, d *requestDecoder) error {
 	body, err := io.ReadAll(r.Body)
 	if err != nil {
 		var mbe *http.MaxBytesError
@@ -56,8 +100,10 @@ func decodeStrict(r *http.Request, dst any, v *validator.Validate) error {
 	if _, err := dec.Token(); err != io.EOF {
 		return fmt.Errorf("%w: unexpected data after the JSON object", errBadBody)
 	}
-	if probs := unknownFields(raw, reflect.TypeOf(dst), ""); len(probs) > 0 {
-		return probs
+	if !d.keysKnown(raw, reflect.TypeOf(dst)) {
+		if probs := unknownFields(raw, reflect.TypeOf(dst), ""); len(probs) > 0 {
+			return probs
+		}
 	}
 	strict := json.NewDecoder(bytes.NewReader(body))
 	strict.DisallowUnknownFields()
@@ -69,7 +115,7 @@ func decodeStrict(r *http.Request, dst any, v *validator.Validate) error {
 		}
 		return fmt.Errorf("%w: %w", errBadBody, err)
 	}
-	if err := v.Struct(dst); err != nil {
+	if err := d.validate.Struct(dst); err != nil {
 		return err
 	}
 	return nil
@@ -181,6 +227,79 @@ func unknownFields(raw any, t reflect.Type, ptr string) fieldErrors {
 		}
 	}
 	return out
+}
+
+// keysKnown is the quick form of unknownFields for the common case: it
+// reports whether every object key of raw names a field of t (exact case)
+// and every quantity has an acceptable JSON shape, without building
+// pointers, suggestions or sorted key lists; unknownFields then runs only
+// when there is something to report.
+func (d *requestDecoder) keysKnown(raw any, t reflect.Type) bool {
+	for t.Kind() == reflect.Pointer {
+		t = t.Elem()
+	}
+	if t == quantityType {
+		return quantityProblem(raw) == ""
+	}
+	if reflect.PointerTo(t).Implements(unmarshalerType) {
+		return true
+	}
+	switch t.Kind() {
+	case reflect.Struct:
+		obj, ok := raw.(map[string]any)
+		if !ok {
+			return true // the typed decode reports the wrong JSON type
+		}
+		fields, indexed := d.fields[t]
+		for k, v := range obj {
+			var ft reflect.Type
+			var ok bool
+			if indexed {
+				ft, ok = fields[k]
+			} else {
+				ft, ok = fieldNamed(t, k)
+			}
+			if !ok || !d.keysKnown(v, ft) {
+				return false
+			}
+		}
+	case reflect.Slice, reflect.Array:
+		if arr, ok := raw.([]any); ok {
+			for _, e := range arr {
+				if !d.keysKnown(e, t.Elem()) {
+					return false
+				}
+			}
+		}
+	case reflect.Map:
+		if obj, ok := raw.(map[string]any); ok {
+			for _, e := range obj {
+				if !d.keysKnown(e, t.Elem()) {
+					return false
+				}
+			}
+		}
+	}
+	return true
+}
+
+// fieldNamed returns the type of the exported field of struct t whose JSON
+// name is exactly name.
+func fieldNamed(t reflect.Type, name string) (reflect.Type, bool) {
+	for i := range t.NumField() {
+		f := t.Field(i)
+		if !f.IsExported() {
+			continue
+		}
+		n, _, _ := strings.Cut(f.Tag.Get("json"), ",")
+		if n == "" {
+			n = f.Name
+		}
+		if n == name && n != "-" {
+			return f.Type, true
+		}
+	}
+	return nil, false
 }
 
 // escapePointer escapes a key for a JSON pointer (RFC 6901 §3).

@@ -6,7 +6,6 @@ import (
 	"net/http"
 
 	"github.com/gin-gonic/gin"
-	"github.com/go-playground/validator/v10"
 
 	"stagewright/physics"
 	"stagewright/physics/gas"
@@ -127,9 +126,9 @@ type MixtureOut struct {
 }
 
 type gasHandler struct {
-	svc      GasPropertyService
-	validate *validator.Validate
-	log      *slog.Logger
+	svc     GasPropertyService
+	decoder *requestDecoder
+	log     *slog.Logger
 }
 
 // properties returns the properties of a gas at one state.
@@ -152,7 +151,7 @@ type gasHandler struct {
 //	@Router			/v1/gas/properties [post]
 func (h gasHandler) properties(c *gin.Context) {
 	var req PropertiesRequest
-	if err := decodeStrict(c.Request, &req, h.validate); err != nil {
+	if err := decodeStrict(c.Request, &req, h.decoder); err != nil {
 		fail(c, h.log, err)
 		return
 	}

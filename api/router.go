@@ -122,10 +122,11 @@ func NewRouter(svc Services, opts Options) (*gin.Engine, error) {
 	if opts.ComputeTimeout > 0 {
 		v1.Use(computeDeadline(opts.ComputeTimeout))
 	}
-	st := stageHandler{svc: svc, validate: newValidator(), log: log}
+	dec := newRequestDecoder(StageRequest{}, BatchRequest{}, PropertiesRequest{})
+	st := stageHandler{svc: svc, decoder: dec, log: log}
 	v1.POST("/stage/size", st.size)
 	v1.POST("/stage/size/batch", st.sizeBatch)
-	gh := gasHandler{svc: svc, validate: st.validate, log: log}
+	gh := gasHandler{svc: svc, decoder: dec, log: log}
 	v1.POST("/gas/properties", gh.properties)
 	v1.GET("/gas/components", gh.components)
 	return r, nil

@@ -6,7 +6,6 @@ import (
 	"net/http"
 
 	"github.com/gin-gonic/gin"
-	"github.com/go-playground/validator/v10"
 
 	"stagewright/service"
 )
@@ -17,9 +16,9 @@ type StageSizer interface {
 }
 
 type stageHandler struct {
-	svc      StageSizer
-	validate *validator.Validate
-	log      *slog.Logger
+	svc     StageSizer
+	decoder *requestDecoder
+	log     *slog.Logger
 }
 
 // size sizes one stage.
@@ -42,7 +41,7 @@ type stageHandler struct {
 //	@Router			/v1/stage/size [post]
 func (h stageHandler) size(c *gin.Context) {
 	var req StageRequest
-	if err := decodeStrict(c.Request, &req, h.validate); err != nil {
+	if err := decodeStrict(c.Request, &req, h.decoder); err != nil {
 		fail(c, h.log, err)
 		return
 	}
