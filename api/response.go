@@ -246,7 +246,7 @@ type PolytropicOut struct {
 	Used string `json:"used" enums:"stepwise,schultz" validate:"required"`
 	// StepwiseHead is the head of the path of constant small-stage efficiency, J/kg.
 	StepwiseHead float64 `json:"stepwise_head" format:"double" validate:"required"`
-	// StepwiseSteps is the number of integration steps.
+	// StepwiseSteps is the number of integration steps (0: the closed form of a constant-property gas).
 	StepwiseSteps int `json:"stepwise_steps" validate:"required"`
 	// SchultzHead is the ASME PTC 10 / Schultz head, J/kg.
 	SchultzHead float64 `json:"schultz_head" format:"double" validate:"required"`

@@ -1079,7 +1079,7 @@ type ApiPolytropicOut struct {
 	// StepwiseHead StepwiseHead is the head of the path of constant small-stage efficiency, J/kg.
 	StepwiseHead float64 `json:"stepwise_head"`
 
-	// StepwiseSteps StepwiseSteps is the number of integration steps.
+	// StepwiseSteps StepwiseSteps is the number of integration steps (0: the closed form of a constant-property gas).
 	StepwiseSteps int `json:"stepwise_steps"`
 
 	// Used Used is the method behind head.polytropic: "stepwise" or "schultz".

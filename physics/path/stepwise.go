@@ -27,7 +27,8 @@ type StepwiseResult struct {
 	Head physics.JoulePerKg
 	// Efficiency is the polytropic efficiency of the path.
 	Efficiency float64
-	// Steps is the number of Runge-Kutta steps in ln p of the answer.
+	// Steps is the number of Runge-Kutta steps in ln p of the answer (0:
+	// the closed form of a constant-property gas).
 	Steps int
 	// HeadError is the estimated relative error of Head: the change
 	// between Steps/2 and Steps divided by 2⁴ − 1 (Richardson, 4th order).
@@ -65,7 +66,36 @@ func StepwisePath(m gas.Model, suction gas.State, p2 physics.Pascal, etaP float6
 	if err := checkEfficiency("polytropic efficiency", etaP); err != nil {
 		return StepwiseResult{}, err
 	}
+	switch c := m.(type) {
+	case gas.Constant:
+		return constantPath(c, suction, p2, etaP)
+	case *gas.Constant:
+		if c != nil {
+			return constantPath(*c, suction, p2, etaP)
+		}
+	}
 	return stepwiseConverged(m, suction, p2, etaP, firstSteps)
+}
+
+// constantPath is the path of constant polytropic efficiency of a
+// calorically perfect gas in closed form, the exact solution of the
+// equation StepwisePath integrates (X = 0, p v = R T, constant cp):
+//
+//	T2 = T1 (p2/p1)^(R/(cp ηp)),   Hp = ∫ v dp = ηp cp (T2 − T1)
+//
+// (Dixon & Hall 2014, ch. 2, polytropic efficiency; Saravanamuttoo et al.
+// 2009, §2.2). Steps is 0 and HeadError 0: no integration was needed.
+func constantPath(c gas.Constant, suction gas.State, p2 physics.Pascal, etaP float64) (StepwiseResult, error) {
+	cp := float64(suction.Cp)
+	r := cp - float64(suction.Cv) // specific gas constant of the model
+	t1 := float64(suction.Temperature)
+	t2 := t1 * math.Pow(float64(p2)/float64(suction.Pressure), r/(cp*etaP))
+	head := etaP * cp * (t2 - t1)
+	if !physics.Finite(t2, head) || !(r > 0) {
+		return StepwiseResult{}, &physics.DomainError{Name: "state", Value: t2, Want: "a finite discharge temperature",
+			Reason: "the constant-property path gives no finite discharge temperature for this pressure ratio"}
+	}
+	return stepwiseResult(c, suction, p2, etaP, t2, head, 0, 0)
 }
 
 // stepwiseConverged integrates with n steps and doubles them until the
