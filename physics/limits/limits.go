@@ -12,6 +12,7 @@ package limits
 import (
 	"fmt"
 	"math"
+	"strconv"
 )
 
 // Sense says on which side of its limit a value becomes a concern.
@@ -160,11 +161,12 @@ func (a Assessment) Message() string {
 	}
 	switch a.Severity {
 	case OK:
-		return fmt.Sprintf("%s %s%s is within the warning level of %s%s", a.Rule.Quantity, num(a.Value), unit, num(a.Rule.Warning), unit)
+		return a.Rule.Quantity + " " + num(a.Value) + unit + " is within the warning level of " + num(a.Rule.Warning) + unit
 	case Notice:
-		return fmt.Sprintf("%s %s%s is within %.0f %% of the warning level of %s%s", a.Rule.Quantity, num(a.Value), unit, 100*NoticeMargin, num(a.Rule.Warning), unit)
+		return a.Rule.Quantity + " " + num(a.Value) + unit + " is within " + strconv.FormatFloat(100*NoticeMargin, 'f', 0, 64) +
+			" % of the warning level of " + num(a.Rule.Warning) + unit
 	}
-	return fmt.Sprintf("%s %s%s %s the %s of %s%s", a.Rule.Quantity, num(a.Value), unit, verb, level, num(a.Level), unit)
+	return a.Rule.Quantity + " " + num(a.Value) + unit + " " + verb + " the " + level + " of " + num(a.Level) + unit
 }
 
-func num(v float64) string { return fmt.Sprintf("%.4g", v) }
+func num(v float64) string { return strconv.FormatFloat(v, 'g', 4, 64) }
