@@ -121,7 +121,7 @@ func (s *Service) SizeStage(ctx context.Context, d StageDuty) (StageResult, erro
 			Source: "Schultz, ASME J. Eng. Power 84(1):69-82 (1962) and ASME PTC 10-1997 (Schultz); Huntington, ASME J. Eng. Gas Turbines Power 107:872 (1985) (stepwise path)"},
 		Method{Subject: "stage sizing", Name: "Euler work with slip and power input factor; continuity at station static densities with exit blockage",
 			Source: "Dixon & Hall, Fluid Mechanics and Thermodynamics of Turbomachinery, 7th ed. (2014), ch. 7; Saravanamuttoo et al., Gas Turbine Theory, 6th ed. (2009), ch. 4"})
-	if sz.Geometry.EyeChoice == "min-shroud-mach" {
+	if sz.Geometry.EyeChoice == stage.EyeMinShroudMach {
 		prov.Methods = append(prov.Methods, Method{Subject: "inducer eye",
 			Name:   "eye tip diameter chosen for the least shroud relative Mach number at the mass flow (bounded one-dimensional minimisation)",
 			Source: "Dixon & Hall (2014), §7 optimum design of a compressor inlet; Rodgers (from memory)"})
