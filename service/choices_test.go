@@ -246,3 +246,51 @@ func BenchmarkSizeStageChosenRealGas(b *testing.B) {
 		}
 	}
 }
+
+// Warnings on textbook stages (testdata/reference/stage-examples.md, values
+// from memory or computed there; levels from rules-of-thumb.md, common
+// practice, no source): the Saravanamuttoo Example 4.1 inducer runs at a
+// shroud relative Mach number of 0.911, past the 0.85 warning level but
+// inside the 0.95 limit; its 455.5 m/s tip speed is past the 350 m/s limit
+// of a closed steel impeller and past the 450 m/s warning level (inside
+// the 500 m/s limit) of an open aluminium one; the Dixon & Hall example
+// reaches an absolute Mach number of 1.012 at the diffuser inlet, past the
+// 1.0 warning level of a vaneless diffuser and past the 1.0 limit of a
+// vaned one.
+func TestTextbookStagesWarn(t *testing.T) {
+	sar := service.StageDuty{Gas: textbookAir(), SuctionPressure: 1.1e5, SuctionTemperature: 295,
+		PressureRatio: f(4.241), MassFlow: f(9), Speed: f(17400), IsentropicEfficiency: f(0.78),
+		Impeller: service.ImpellerInput{BladeExitAngle: f(0), SlipFactor: f(0.9), PowerInputFactor: f(1.04), ExitMeridionalVelocity: f(142.6),
+			ExitBlockage: f(0), Inlet: service.InletInput{Type: "axial-eye", HubRatio: f(0.5), MeridionalVelocity: f(142.6)}}}
+	res := size(t, sar)
+	w := warning(res, "inducer-mach")
+	require.NotNil(t, w)
+	assert.Equal(t, "warning", w.Severity)
+	assert.InDelta(t, 0.911, w.Value, 0.002)
+	assert.InDelta(t, 0.85, w.Limit, 1e-12)
+	w = warning(res, "tip-speed")
+	require.NotNil(t, w)
+	assert.Equal(t, "limit", w.Severity, "closed steel")
+	assert.InDelta(t, 455.5, w.Value, 0.5)
+	assert.InDelta(t, 350, w.Limit, 1e-12)
+	sar.Impeller.Construction = "open-aluminium"
+	w = warning(size(t, sar), "tip-speed")
+	require.NotNil(t, w)
+	assert.Equal(t, "warning", w.Severity, "open aluminium")
+	assert.InDelta(t, 450, w.Limit, 1e-12)
+
+	dix := service.StageDuty{Gas: textbookAir(), SuctionPressure: 1e5, SuctionTemperature: 295.15,
+		PressureRatio: f(4.2), MassFlow: f(2), Speed: f(15000), IsentropicEfficiency: f(0.83), MechanicalEfficiency: f(0.97),
+		Impeller: service.ImpellerInput{BladeExitAngle: f(0), SlipFactor: f(1 - 2.0/17), ExitMeridionalVelocity: f(50.16),
+			Inlet: service.InletInput{Type: "radial", DiameterRatio: f(0.45), MeridionalVelocity: f(100)}}}
+	res = size(t, dix)
+	w = warning(res, "diffuser-inlet-mach")
+	require.NotNil(t, w)
+	assert.Equal(t, "warning", w.Severity, "vaneless")
+	assert.InDelta(t, 1.012, w.Value, 0.005)
+	dix.Diffuser = "vaned"
+	w = warning(size(t, dix), "diffuser-inlet-mach")
+	require.NotNil(t, w)
+	assert.Equal(t, "limit", w.Severity, "vaned")
+	assert.InDelta(t, 1.0, w.Limit, 1e-12)
+}
