@@ -280,6 +280,9 @@ type solver struct {
 	// from which continuity gives back the same eye in one static state.
 	eyeSpeed physics.RevPerMin
 	eyeCm    physics.MeterPerS
+	// A given eye's meridional velocity depends on no unknown at all: it is
+	// found once (continuity on the subsonic branch) and reused likewise.
+	givenEyeCm physics.MeterPerS
 }
 
 // Convergence of the joint iteration.
@@ -321,9 +324,13 @@ func (sv *solver) duty(comp path.Result, n physics.RevPerMin) stage.Duty {
 // optimum eye found at the same speed.
 func (sv *solver) size(comp path.Result, n physics.RevPerMin) (stage.Sizing, error) {
 	in := sv.inlet
-	cached := in.Kind == stage.InletAxialEye && in.EyeTipDiameter == 0 && in.MeridionalVelocity == 0 && sv.eyeCm > 0 && sv.eyeSpeed == n
-	if cached {
-		in.MeridionalVelocity = sv.eyeCm
+	axial := in.Kind == stage.InletAxialEye && in.MeridionalVelocity == 0
+	cached, givenCached := false, false
+	switch {
+	case axial && in.EyeTipDiameter > 0 && sv.givenEyeCm > 0:
+		in.MeridionalVelocity, in.EyeTipDiameter, givenCached = sv.givenEyeCm, 0, true
+	case axial && in.EyeTipDiameter == 0 && sv.eyeCm > 0 && sv.eyeSpeed == n:
+		in.MeridionalVelocity, cached = sv.eyeCm, true
 	}
 	sz, err := stage.Size(sv.duty(comp, n), sv.imp, in)
 	if err != nil {
@@ -332,8 +339,12 @@ func (sv *solver) size(comp path.Result, n physics.RevPerMin) (stage.Sizing, err
 	switch {
 	case cached:
 		sz.Geometry.EyeChoice = stage.EyeMinShroudMach
+	case givenCached:
+		sz.Geometry.EyeChoice = stage.EyeGivenDiameter
 	case sz.Geometry.EyeChoice == stage.EyeMinShroudMach:
 		sv.eyeSpeed, sv.eyeCm = n, sz.Velocities.InletMeridional
+	case sz.Geometry.EyeChoice == stage.EyeGivenDiameter:
+		sv.givenEyeCm = sz.Velocities.InletMeridional
 	}
 	return sz, nil
 }
@@ -362,45 +373,22 @@ func (sv *solver) run(ctx context.Context, res *StageResult) (physics.RevPerMin,
 		}
 	}
 	unrounded, rounded := n, false
-	// The efficiency is updated by the secant method on f(η) = estimate(η) − η
-	// once two points are known (plain substitution converges only
-	// linearly, at about a tenth per step).
+	// Outer loop: the efficiency, by the secant method on
+	// f(η) = estimate(η) − η once two points are known (plain substitution
+	// converges only linearly); each step first settles the speed, slip
+	// factor and exit velocity at the work of that efficiency.
 	var prevEta, prevF float64
 	havePrev := false
 	for range maxSolverIterations {
 		if err := ctx.Err(); err != nil {
 			return 0, comp, stage.Sizing{}, err
 		}
-		if sv.d.Impeller.ExitMeridionalVelocity == nil {
-			cr2, ok := exitVelocityFor(comp.Work, sv.imp)
-			if !ok {
-				return 0, comp, stage.Sizing{}, fieldErr("impeller.blade_exit_angle", reason("blade_exit_angle",
-					"the blades are swept back too far for the default exit flow coefficient cr2/U2 = 0.25: give impeller.exit_meridional_velocity or less backsweep", sv.imp.BladeExitAngle))
-			}
-			sv.imp.ExitMeridionalVelocity = cr2
-		}
-		sz, err := sv.size(comp, n)
+		sz, next, err := sv.settle(ctx, q, comp, n, fixed || rounded)
 		if err != nil {
 			return 0, comp, sz, err
 		}
-		moved, speedMoved := false, false
-		if sv.d.Impeller.SlipFactor == nil {
-			sigma, err := slipFrom(sv.d.Impeller, sz.Coefficients.InletTipRatio)
-			if err != nil {
-				return 0, comp, sz, err
-			}
-			if math.Abs(sigma-sv.imp.SlipFactor) > solverTolerance {
-				sv.imp.SlipFactor, moved = sigma, true
-			}
-		}
-		if !fixed && !rounded {
-			next, err := sv.targetSpeed(q, comp, sz.Velocities.TipSpeed)
-			if err != nil {
-				return 0, comp, sz, err
-			}
-			if math.Abs(float64(next/n)-1) > solverTolerance {
-				n, moved, speedMoved = next, true, true
-			}
+		n = next
+		if !rounded {
 			unrounded = n
 		}
 		if sv.estimate {
@@ -409,32 +397,26 @@ func (sv *solver) run(ctx context.Context, res *StageResult) (physics.RevPerMin,
 				return 0, comp, sz, fieldErr("efficiency", fmt.Errorf("efficiency estimate: %w", err))
 			}
 			if f := sv.est.Value - sv.eff.Value; math.Abs(f) > efficiencyTolerance {
-				next := sv.est.Value
-				// Secant steps only while the speed stands still: a slope
-				// across a moving speed misleads.
-				if speedMoved {
-					havePrev = false
-				}
+				step := sv.est.Value
 				if havePrev && f != prevF {
 					if s := sv.eff.Value - f*(sv.eff.Value-prevEta)/(f-prevF); s > 0.2 && s < 1 {
-						next = s
+						step = s
 					}
 				}
 				prevEta, prevF, havePrev = sv.eff.Value, f, true
-				sv.eff.Value, moved = next, true
+				sv.eff.Value = step
 				if comp, err = sv.compression(); err != nil {
 					return 0, comp, sz, err
 				}
+				continue
 			}
-		}
-		if moved {
-			continue
 		}
 		if sv.plan.step > 0 && !rounded {
 			unrounded, rounded = n, true
 			if n, err = stage.RoundSpeed(n, physics.RevPerMin(sv.plan.step)); err != nil {
 				return 0, comp, sz, fieldErr("speed_step", err)
 			}
+			havePrev = false // the speed moved under the slope
 			continue
 		}
 		res.SpeedBasis = sv.plan.basis
@@ -444,11 +426,55 @@ func (sv *solver) run(ctx context.Context, res *StageResult) (physics.RevPerMin,
 		}
 		return n, comp, sz, nil
 	}
-	if sv.estimate {
-		return 0, comp, stage.Sizing{}, fieldErr("efficiency", reason("efficiency",
-			"the efficiency estimate did not settle with the sizing for this duty; give efficiency.polytropic or efficiency.isentropic", sv.eff.Value))
+	return 0, comp, stage.Sizing{}, fieldErr("efficiency", reason("efficiency",
+		"the efficiency estimate did not settle with the sizing for this duty; give efficiency.polytropic or efficiency.isentropic", sv.eff.Value))
+}
+
+// settle sizes the stage at the work of comp, updating the speed of a
+// target (unless fixed), Wiesner's slip factor and the default exit
+// velocity until none moves, and returns the sizing and the speed.
+func (sv *solver) settle(ctx context.Context, q physics.CubicMeterPerS, comp path.Result, n physics.RevPerMin, fixed bool) (stage.Sizing, physics.RevPerMin, error) {
+	for range maxSolverIterations {
+		if err := ctx.Err(); err != nil {
+			return stage.Sizing{}, n, err
+		}
+		if sv.d.Impeller.ExitMeridionalVelocity == nil {
+			cr2, ok := exitVelocityFor(comp.Work, sv.imp)
+			if !ok {
+				return stage.Sizing{}, n, fieldErr("impeller.blade_exit_angle", reason("blade_exit_angle",
+					"the blades are swept back too far for the default exit flow coefficient cr2/U2 = 0.25: give impeller.exit_meridional_velocity or less backsweep", sv.imp.BladeExitAngle))
+			}
+			sv.imp.ExitMeridionalVelocity = cr2
+		}
+		sz, err := sv.size(comp, n)
+		if err != nil {
+			return sz, n, err
+		}
+		moved := false
+		if sv.d.Impeller.SlipFactor == nil {
+			sigma, err := slipFrom(sv.d.Impeller, sz.Coefficients.InletTipRatio)
+			if err != nil {
+				return sz, n, err
+			}
+			if math.Abs(sigma-sv.imp.SlipFactor) > solverTolerance {
+				sv.imp.SlipFactor, moved = sigma, true
+			}
+		}
+		if !fixed {
+			next, err := sv.targetSpeed(q, comp, sz.Velocities.TipSpeed)
+			if err != nil {
+				return sz, n, err
+			}
+			if math.Abs(float64(next/n)-1) > solverTolerance {
+				n, moved = next, true
+			}
+		}
+		if !moved {
+			return sz, n, nil
+		}
 	}
-	return 0, comp, stage.Sizing{}, fieldErr(field, reason(field, "the speed, slip factor and exit velocity did not settle for this duty; give the speed and the slip factor", sv.plan.value))
+	field := sv.field()
+	return stage.Sizing{}, n, fieldErr(field, reason(field, "the speed, slip factor and exit velocity did not settle for this duty; give the speed and the slip factor", sv.plan.value))
 }
 
 // targetSpeed is the speed at which the tip speed u2 gives the target tip
