@@ -212,7 +212,7 @@ func (f *eyeFlow) shroudMach(cm, k float64) (float64, bool) {
 func (f *eyeFlow) optimumMeridional(cmMax, k float64) (float64, bool) {
 	const (
 		golden = 0.3819660112501051 // (3 − √5)/2
-		rtol   = 1e-7 // on cm; the Mach number is flat to 1e-14 there, far below any use
+		rtol   = 1e-7               // on cm; the Mach number is flat to 1e-14 there, far below any use
 	)
 	a, b := 1e-4*cmMax, cmMax
 	x := a + golden*(b-a)
