@@ -352,33 +352,15 @@ func TestEyeInputErrors(t *testing.T) {
 // the least shroud Mach number, constant-property air (issue 4 target:
 // <= 20 us).
 func BenchmarkSizeOptimumEye(b *testing.B) {
-	air, _ := gas.NewConstant(1005, 1.4)
-	s01, _ := air.State(295, 1.1e5)
-	d := stage.Duty{Model: air, Suction: s01, Work: 194e3, IsentropicEfficiency: 0.78, ImpellerLossShare: 0.5, MassFlow: 9, Speed: 17400}
-	imp := stage.Impeller{SlipFactor: 0.9, PowerInputFactor: 1.04, ExitMeridionalVelocity: 142.6, ExitBlockage: 0.05}
-	in := stage.Inlet{Kind: stage.InletAxialEye, HubRatio: 0.5, PrewhirlAngle: 10}
-	b.ReportAllocs()
-	for b.Loop() {
-		if _, err := stage.Size(d, imp, in); err != nil {
-			b.Fatal(err)
-		}
-	}
+	benchSize(b, stage.Impeller{SlipFactor: 0.9, PowerInputFactor: 1.04, ExitMeridionalVelocity: 142.6, ExitBlockage: 0.05},
+		stage.Inlet{Kind: stage.InletAxialEye, HubRatio: 0.5, PrewhirlAngle: 10})
 }
 
 // BenchmarkSizeGivenEye is the same with the eye tip diameter given (the
 // continuity iteration).
 func BenchmarkSizeGivenEye(b *testing.B) {
-	air, _ := gas.NewConstant(1005, 1.4)
-	s01, _ := air.State(295, 1.1e5)
-	d := stage.Duty{Model: air, Suction: s01, Work: 194e3, IsentropicEfficiency: 0.78, ImpellerLossShare: 0.5, MassFlow: 9, Speed: 17400}
-	imp := stage.Impeller{SlipFactor: 0.9, PowerInputFactor: 1.04, ExitMeridionalVelocity: 142.6}
-	in := stage.Inlet{Kind: stage.InletAxialEye, HubRatio: 0.5, EyeTipDiameter: 0.3}
-	b.ReportAllocs()
-	for b.Loop() {
-		if _, err := stage.Size(d, imp, in); err != nil {
-			b.Fatal(err)
-		}
-	}
+	benchSize(b, stage.Impeller{SlipFactor: 0.9, PowerInputFactor: 1.04, ExitMeridionalVelocity: 142.6},
+		stage.Inlet{Kind: stage.InletAxialEye, HubRatio: 0.5, EyeTipDiameter: 0.3})
 }
 
 // BenchmarkSizeOptimumEyeIdealCH4 is the optimum-eye sizing on the general

@@ -361,18 +361,25 @@ func TestSizeImpossible(t *testing.T) {
 	}
 }
 
-func BenchmarkSizeIdealConstant(b *testing.B) {
+// benchSize times stage.Size on the Saravanamuttoo Example 4.1 duty
+// (constant-property air; stage-examples.md §2) with blading imp and
+// inlet in.
+func benchSize(b *testing.B, imp stage.Impeller, in stage.Inlet) {
+	b.Helper()
 	air, _ := gas.NewConstant(1005, 1.4)
 	s01, _ := air.State(295, 1.1e5)
 	d := stage.Duty{Model: air, Suction: s01, Work: 194e3, IsentropicEfficiency: 0.78, ImpellerLossShare: 0.5, MassFlow: 9, Speed: 17400}
-	imp := stage.Impeller{SlipFactor: 0.9, PowerInputFactor: 1.04, ExitMeridionalVelocity: 142.6}
-	in := stage.Inlet{Kind: stage.InletAxialEye, HubRatio: 0.5, MeridionalVelocity: 142.6}
 	b.ReportAllocs()
 	for b.Loop() {
 		if _, err := stage.Size(d, imp, in); err != nil {
 			b.Fatal(err)
 		}
 	}
+}
+
+func BenchmarkSizeIdealConstant(b *testing.B) {
+	benchSize(b, stage.Impeller{SlipFactor: 0.9, PowerInputFactor: 1.04, ExitMeridionalVelocity: 142.6},
+		stage.Inlet{Kind: stage.InletAxialEye, HubRatio: 0.5, MeridionalVelocity: 142.6})
 }
 
 // TestSizeTooSmallFlow: a flow so small that the passages would be under
