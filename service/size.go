@@ -43,6 +43,7 @@ func (s *Service) SizeStage(ctx context.Context, d StageDuty) (StageResult, erro
 	}
 	prov.GasModel = model.Name()
 	prov.Methods = append(prov.Methods, gasNotes.methods...)
+	prov.BinaryInteraction = interactionsUsed(model)
 	res.Warnings = append(res.Warnings, gasNotes.warnings...)
 
 	suction, err := fullState(model, physics.Kelvin(d.SuctionTemperature), physics.Pascal(d.SuctionPressure))

@@ -202,6 +202,9 @@ type Provenance struct {
 	GasModel       string
 	Methods        []Method
 	Defaults       []Default
+	// BinaryInteraction is the kij of every pair of components of a cubic
+	// model, with its source (empty for the other models).
+	BinaryInteraction []BinaryInteraction
 	// InputHash is the SHA-256 of the normalised duty (SI numbers, defaults
 	// not yet applied), hex.
 	InputHash string
