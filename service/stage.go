@@ -220,7 +220,14 @@ type Power struct {
 	DriverMargin float64
 }
 
-// StandardFlows are volume flows at reference conditions, m3/s.
+// WetBasis states the basis of every standard volume flow (given or
+// reported): the gas as it flows, water vapour included. An inferred
+// choice (ISO 13443 names both bases; a dry-basis volume would leave the
+// water out), stated in provenance.
+const WetBasis = "wet basis: the standard volume is that of the gas as it flows, water vapour included (from relative humidity or the composition), at the density the gas model gives at the reference condition (this project's choice; a dry-basis volume would leave the water out)"
+
+// StandardFlows are volume flows at reference conditions, m3/s, on the wet
+// basis (WetBasis).
 type StandardFlows struct {
 	Normal, Standard, USStandard float64
 }
@@ -366,7 +373,7 @@ func massFlow(d StageDuty, m gas.Model, suction gas.State, prov *Provenance) (fl
 	if err != nil {
 		return 0, fieldErr("flow.standard_volume", err)
 	}
-	prov.Methods = append(prov.Methods, Method{Subject: "flow basis", Name: "standard volume at " + ref.Name + " conditions, density of the gas model there",
+	prov.Methods = append(prov.Methods, Method{Subject: "flow basis", Name: "standard volume at " + ref.Name + " conditions, density of the gas model there; " + WetBasis,
 		Source: ref.Source})
 	return float64(mdot), nil
 }

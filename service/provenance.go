@@ -57,3 +57,18 @@ func (s *Service) DefaultInteractions() []DefaultInteraction {
 	}
 	return out
 }
+
+// holdsWater reports whether a mixture model's gas holds water vapour.
+func holdsWater(m gas.Model) bool {
+	comp, ok := compositionOfModel(m)
+	if !ok {
+		return false
+	}
+	x := comp.MoleFractions()
+	for i := range comp.Len() {
+		if comp.Component(i).Formula == "H2O" && x[i] > 0 {
+			return true
+		}
+	}
+	return false
+}
