@@ -56,7 +56,11 @@ const (
 // from memory and could not be checked against the paper: a search of the
 // stored literature (issue 12) found the paper's abstract but not its
 // equations, nor those of the later papers of the same authors
-// (EfficiencyCorrelationUncertainty says so in every answer). The
+// (EfficiencyCorrelationUncertainty says so in every answer). Two public
+// third-party transcriptions turned up by the same search (code, not the
+// paper) carry the same tip-Mach term −(0.05 + 3P)P with P = φ_CR (Mu2 −
+// 0.8), and one the whole form with these coefficients: that supports the
+// recall but does not verify it. The
 // Reynolds-number and roughness corrections of the paper (η_max depends on
 // them) are not included: η_max = 0.86 stands for a large industrial stage.
 //
