@@ -17,6 +17,7 @@ type GasPropertyService interface {
 	GasProperties(ctx context.Context, g service.GasInput, t, p float64) (service.PropertiesResult, error)
 	Components() []gas.Component
 	Mixtures() []gas.Mixture
+	DefaultInteractions() []service.DefaultInteraction
 }
 
 // PropertiesRequest asks for the properties of a gas at one state.
@@ -84,6 +85,20 @@ type ComponentFraction struct {
 type ComponentsResponse struct {
 	Components []ComponentOut `json:"components" validate:"required"`
 	Mixtures   []MixtureOut   `json:"mixtures" validate:"required"`
+	// BinaryInteraction is the built-in kij table of the cubic models, each
+	// value with its source; pairs not listed use kij = 0.
+	BinaryInteraction []DefaultInteractionOut `json:"binary_interaction" validate:"required"`
+	// HeatCapacityHandOver says how cp is made continuous where one range
+	// of a component's correlation hands over to the next (the ranges in
+	// heat_capacity are the published ones).
+	HeatCapacityHandOver string `json:"heat_capacity_hand_over" validate:"required"`
+}
+
+// DefaultInteractionOut is one built-in kij of a cubic model.
+type DefaultInteractionOut struct {
+	// Model is "peng-robinson" or "srk".
+	Model string `json:"model" example:"peng-robinson" validate:"required"`
+	BinaryInteractionOut
 }
 
 // ComponentOut is one catalogue component.
@@ -204,7 +219,7 @@ func (h gasHandler) properties(c *gin.Context) {
 // components lists the gas catalogue.
 //
 //	@Summary		The gas component catalogue
-//	@Description	Every component with its molar mass, critical constants, acentric factor, ideal-gas cp correlations and their sources, and the named mixtures.
+//	@Description	Every component with its molar mass, critical constants, acentric factor, ideal-gas cp correlations and their sources, the named mixtures, the built-in binary interaction parameters (kij) of the cubic models with their sources, and how cp is made continuous between correlation ranges.
 //	@Tags			gas
 //	@Produce		json
 //	@Success		200	{object}	ComponentsResponse
@@ -213,7 +228,12 @@ func (h gasHandler) properties(c *gin.Context) {
 //	@ID				gasComponents
 //	@Router			/v1/gas/components [get]
 func (h gasHandler) components(c *gin.Context) {
-	out := ComponentsResponse{Components: []ComponentOut{}, Mixtures: []MixtureOut{}}
+	out := ComponentsResponse{Components: []ComponentOut{}, Mixtures: []MixtureOut{}, BinaryInteraction: []DefaultInteractionOut{},
+		HeatCapacityHandOver: gas.HandOverMethod}
+	for _, k := range h.svc.DefaultInteractions() {
+		out.BinaryInteraction = append(out.BinaryInteraction, DefaultInteractionOut{Model: k.Model,
+			BinaryInteractionOut: BinaryInteractionOut{Pair: []string{k.A, k.B}, Kij: k.Kij, Source: k.Source}})
+	}
 	for _, k := range h.svc.Components() {
 		co := ComponentOut{ID: k.ID, Formula: k.Formula, Names: k.Names, MolarMass: k.MolarMass,
 			CriticalTemperature: float64(k.Tc), CriticalPressure: float64(k.Pc), AcentricFactor: k.Omega,
@@ -255,6 +275,9 @@ func provenanceOut(p service.Provenance) ProvenanceOut {
 	}
 	for _, d := range p.Defaults {
 		out.DefaultsApplied = append(out.DefaultsApplied, DefaultOut(d))
+	}
+	for _, k := range p.BinaryInteraction {
+		out.BinaryInteraction = append(out.BinaryInteraction, BinaryInteractionOut{Pair: []string{k.A, k.B}, Kij: k.Kij, Source: k.Source})
 	}
 	return out
 }

@@ -307,6 +307,22 @@ type ProvenanceOut struct {
 	DefaultsApplied []DefaultOut `json:"defaults_applied" validate:"required"`
 	// InputHash is the SHA-256 of the normalised duty in SI units.
 	InputHash string `json:"input_hash" validate:"required"`
+	// BinaryInteraction lists, for the peng-robinson and srk models, the kij
+	// used for every pair of components with its source (absent for the
+	// other models).
+	BinaryInteraction []BinaryInteractionOut `json:"binary_interaction,omitempty"`
+}
+
+// BinaryInteractionOut is a binary interaction parameter kij used for a
+// pair of components, with its source.
+type BinaryInteractionOut struct {
+	// Pair names the two components by catalogue id.
+	Pair []string `json:"pair" example:"methane,carbon-dioxide" validate:"required"`
+	// Kij is the binary interaction parameter, dimensionless.
+	Kij float64 `json:"kij" format:"double" example:"0.0919" validate:"required"`
+	// Source is the publication the value comes from, "given in the
+	// request", or a note that no built-in value exists (then kij is 0).
+	Source string `json:"source" validate:"required"`
 }
 
 // MethodOut is a method and its published source.

@@ -68,6 +68,7 @@ func (s *Service) ruleSet(d StageDuty, res *StageResult) ([]check, error) {
 		{limits.HeadCoefficientLow(), c.PolytropicHeadCoefficient},
 		{limits.HeadCoefficientHigh(), c.PolytropicHeadCoefficient},
 		{limits.RelativeVelocityRatio(), v.RelativeVelocityRatio},
+		{limits.RelativeVelocityRatioHigh(), v.RelativeVelocityRatio},
 		{limits.SpecificSpeedLow(), c.SpecificSpeed},
 		{limits.SpecificSpeedHigh(), c.SpecificSpeed},
 		{limits.EyeTipRatio(), c.InletTipRatio},

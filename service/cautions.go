@@ -32,6 +32,10 @@ func cautionsFor(m gas.Model, d StageDuty, res *StageResult) []string {
 		fmt.Sprintf("Discharge temperature: %.0f degC at this duty; seals, materials, lubricant and downstream equipment limits govern, and it rises at off-design points.",
 			float64(res.Path.Discharge.Temperature)-273.15),
 	}
+	if res.EfficiencyEstimated {
+		out = append(out, fmt.Sprintf("Efficiency: no efficiency was given, so %.3f polytropic was estimated from a published correlation whose form and coefficients the service holds only from memory and could not check against the paper; head, power and discharge temperature inherit that uncertainty: give the manufacturer's or a tested efficiency.",
+			res.Path.PolytropicEfficiency))
+	}
 	out = append(out, gasHazards(m)...)
 	out = append(out, "Defer to the machine's manufacturer, the applicable standards (API 617, ISO 10439 and their peers), local codes and licensed engineering practice.")
 	return out

@@ -53,6 +53,7 @@ func (s *Service) GasProperties(ctx context.Context, g GasInput, t, p float64) (
 	}
 	res.Provenance.GasModel = m.Name()
 	res.Provenance.Methods = notes.methods
+	res.Provenance.BinaryInteraction = interactionsUsed(m)
 	st, err := fullState(m, physics.Kelvin(t), physics.Pascal(p))
 	if err != nil {
 		return res, fieldErr("temperature", err)

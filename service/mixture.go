@@ -65,6 +65,8 @@ func (s *Service) mixtureModel(g GasInput, t, p float64, notes *gasNotes) (gas.M
 		notes.methods = append(notes.methods, Method{Subject: "gas properties", Name: "Soave-Redlich-Kwong cubic equation of state, van der Waals one-fluid mixing with kij",
 			Source: "Soave, Chem. Eng. Sci. 27:1197 (1972); ideal-gas part as model ideal; phase by Michelsen, Fluid Phase Equilib. 9:1 (1982)"})
 	}
+	notes.methods = append(notes.methods, Method{Subject: "ideal-gas heat capacity", Name: "cp(T) per component by published range, continuous at every hand-over between ranges",
+		Source: "NIST Chemistry WebBook Shomate fits (Chase 1998; testdata/reference/shomate.csv); Poling, Prausnitz & O'Connell (2001) App. A cp/R polynomials (from memory); " + gas.HandOverMethod})
 	if r, ok := m.(gas.Real); ok {
 		return pathModel{Real: r}, *notes, nil
 	}

@@ -43,6 +43,7 @@ func (s *Service) SizeStage(ctx context.Context, d StageDuty) (StageResult, erro
 	}
 	prov.GasModel = model.Name()
 	prov.Methods = append(prov.Methods, gasNotes.methods...)
+	prov.BinaryInteraction = interactionsUsed(model)
 	res.Warnings = append(res.Warnings, gasNotes.warnings...)
 
 	suction, err := fullState(model, physics.Kelvin(d.SuctionTemperature), physics.Pascal(d.SuctionPressure))
@@ -127,12 +128,16 @@ func (s *Service) SizeStage(ctx context.Context, d StageDuty) (StageResult, erro
 			Source: "Dixon & Hall (2014), §7 optimum design of a compressor inlet; Rodgers (from memory)"})
 	}
 	if d.Impeller.SlipFactor == nil {
-		prov.Methods = append(prov.Methods, slipMethod(d.Impeller, imp.SlipFactor))
+		prov.Methods = append(prov.Methods, slipMethod(d.Impeller, imp.SlipFactor, sz.Coefficients.InletTipRatio))
 	}
 
 	res.MassFlow = mdot
 	res.SuctionVolumeFlow = sz.SuctionFlow
 	res.StandardFlows = standardFlows(model, mdot)
+	if holdsWater(model) {
+		prov.Methods = append(prov.Methods, Method{Subject: "flow basis", Name: "standard volume flows of the answer on the " + WetBasis,
+			Source: "ISO 13443:1996 reference conditions (the flow bases of physics/flowbasis)"})
+	}
 	res.Power, err = power(d, mdot, float64(comp.Work), prov)
 	if err != nil {
 		return StageResult{}, err
@@ -520,10 +525,10 @@ func efficiencyRangeWarning(sz stage.Sizing, est stage.EfficiencyEstimate) Warni
 	switch {
 	case phi < lo:
 		w.Value, w.Limit, w.Margin = phi, lo, (phi-lo)/lo
-		w.Message = fmt.Sprintf("the efficiency correlation is used below its flow-coefficient range (%.4g < %.4g): the estimated efficiency is an extrapolation; give the efficiency", phi, lo)
+		w.Message = fmt.Sprintf("the efficiency correlation (form and coefficients from memory, unverified) is used below its flow-coefficient range (%.4g < %.4g): the estimated efficiency is an extrapolation; give the efficiency", phi, lo)
 	case phi > hi:
 		w.Value, w.Limit, w.Margin = phi, hi, (hi-phi)/hi
-		w.Message = fmt.Sprintf("the efficiency correlation is used above its flow-coefficient range (%.4g > %.4g): the estimated efficiency is an extrapolation; give the efficiency", phi, hi)
+		w.Message = fmt.Sprintf("the efficiency correlation (form and coefficients from memory, unverified) is used above its flow-coefficient range (%.4g > %.4g): the estimated efficiency is an extrapolation; give the efficiency", phi, hi)
 	default:
 		mlo, mhi := stage.EfficiencyCorrelationMachRange()
 		limit := mhi
@@ -531,7 +536,7 @@ func efficiencyRangeWarning(sz stage.Sizing, est stage.EfficiencyEstimate) Warni
 			limit = mlo
 		}
 		w.Value, w.Limit, w.Margin = mu, limit, -math.Abs(mu-limit)/limit
-		w.Message = fmt.Sprintf("the efficiency correlation is used outside its tip Mach number range (%.3g, range %.3g-%.3g): %s", mu, mlo, mhi, est.Note)
+		w.Message = fmt.Sprintf("the efficiency correlation (form and coefficients from memory, unverified) is used outside its tip Mach number range (%.3g, range %.3g-%.3g): %s", mu, mlo, mhi, est.Note)
 	}
 	return w
 }

@@ -33,10 +33,29 @@ func slipFrom(in ImpellerInput, radiusRatio float64) (float64, error) {
 	return sigma, nil
 }
 
-// slipMethod records the slip model used and its value.
-func slipMethod(in ImpellerInput, sigma float64) Method {
+// WiesnerRadiusChoice says which inlet radius the service puts into
+// Wiesner's limiting radius ratio: the eye tip (shroud) diameter over the
+// impeller tip diameter, D1t/D2 (D1/D2 for a radial inlet). Texts differ on
+// the inlet radius meant (tip or mean, from memory); the tip is the largest
+// inlet radius and so gives the larger correction (the lower slip factor).
+// An inferred choice, stated in provenance.
+const WiesnerRadiusChoice = "Wiesner's inlet radius ratio is taken at the eye tip (shroud): D1t/D2 (D1/D2 for a radial inlet); texts differ on which inlet radius is meant (tip or mean, from memory), and the tip radius gives the larger correction, i.e. the lower slip factor (this project's inferred choice)"
+
+// slipMethod records the slip model used and its value; ratio is the inlet
+// tip diameter ratio the Wiesner correction was evaluated at.
+func slipMethod(in ImpellerInput, sigma, ratio float64) Method {
+	if in.SlipModel == "wiesner" {
+		lim := stage.WiesnerLimitRatio(in.BladeCount, *in.BladeExitAngle)
+		applied := "not needed"
+		if ratio > lim {
+			applied = "applied"
+		}
+		return Method{Subject: "slip factor",
+			Name: fmt.Sprintf("wiesner slip model, %d blades: slip factor %.4f; inlet-radius correction %s at D1t/D2 = %.4f against the limiting ratio %.4f",
+				in.BladeCount, sigma, applied, ratio, lim),
+			Source: "Wiesner, ASME J. Eng. Power 89:558 (1967), with its inlet-radius correction (form from memory); " + WiesnerRadiusChoice}
+	}
 	src := map[string]string{
-		"wiesner": "Wiesner, ASME J. Eng. Power 89:558 (1967), with its inlet-radius correction (form from memory)",
 		"stanitz": "Stanitz, Trans. ASME 74 (1952), in Dixon & Hall (2014) §7.9 (form from memory)",
 		"stodola": "Stodola (1927), in Dixon & Hall (2014) §7.9 (form from memory)",
 	}[in.SlipModel]

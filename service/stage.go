@@ -19,7 +19,7 @@ import (
 
 // ModelVersion names the version of the physics behind every answer; it
 // changes whenever a result for the same input could change.
-const ModelVersion = "stagewright-physics 0.3.0"
+const ModelVersion = "stagewright-physics 0.4.0"
 
 // Defaults applied when a duty leaves a choice open.
 const (
@@ -202,6 +202,9 @@ type Provenance struct {
 	GasModel       string
 	Methods        []Method
 	Defaults       []Default
+	// BinaryInteraction is the kij of every pair of components of a cubic
+	// model, with its source (empty for the other models).
+	BinaryInteraction []BinaryInteraction
 	// InputHash is the SHA-256 of the normalised duty (SI numbers, defaults
 	// not yet applied), hex.
 	InputHash string
@@ -217,7 +220,14 @@ type Power struct {
 	DriverMargin float64
 }
 
-// StandardFlows are volume flows at reference conditions, m3/s.
+// WetBasis states the basis of every standard volume flow (given or
+// reported): the gas as it flows, water vapour included. An inferred
+// choice (ISO 13443 names both bases; a dry-basis volume would leave the
+// water out), stated in provenance.
+const WetBasis = "wet basis: the standard volume is that of the gas as it flows, water vapour included (from relative humidity or the composition), at the density the gas model gives at the reference condition (this project's choice; a dry-basis volume would leave the water out)"
+
+// StandardFlows are volume flows at reference conditions, m3/s, on the wet
+// basis (WetBasis).
 type StandardFlows struct {
 	Normal, Standard, USStandard float64
 }
@@ -363,7 +373,7 @@ func massFlow(d StageDuty, m gas.Model, suction gas.State, prov *Provenance) (fl
 	if err != nil {
 		return 0, fieldErr("flow.standard_volume", err)
 	}
-	prov.Methods = append(prov.Methods, Method{Subject: "flow basis", Name: "standard volume at " + ref.Name + " conditions, density of the gas model there",
+	prov.Methods = append(prov.Methods, Method{Subject: "flow basis", Name: "standard volume at " + ref.Name + " conditions, density of the gas model there; " + WetBasis,
 		Source: ref.Source})
 	return float64(mdot), nil
 }

@@ -401,6 +401,23 @@ type ApiBatchResponse struct {
 	Succeeded int `json:"succeeded"`
 }
 
+// ApiBinaryInteractionOut defines model for api.BinaryInteractionOut.
+type ApiBinaryInteractionOut struct {
+	// Kij Kij is the binary interaction parameter, dimensionless.
+	//
+	// Example: 0.0919
+	Kij float64 `json:"kij"`
+
+	// Pair Pair names the two components by catalogue id.
+	//
+	// Example: ["methane","carbon-dioxide"]
+	Pair []string `json:"pair"`
+
+	// Source Source is the publication the value comes from, "given in the
+	// request", or a note that no built-in value exists (then kij is 0).
+	Source string `json:"source"`
+}
+
 // ApiBinaryInteractionSpec defines model for api.BinaryInteractionSpec.
 type ApiBinaryInteractionSpec struct {
 	// Kij Kij is the binary interaction parameter, dimensionless.
@@ -487,8 +504,16 @@ type ApiComponentOut struct {
 
 // ApiComponentsResponse defines model for api.ComponentsResponse.
 type ApiComponentsResponse struct {
-	Components []ApiComponentOut `json:"components"`
-	Mixtures   []ApiMixtureOut   `json:"mixtures"`
+	// BinaryInteraction BinaryInteraction is the built-in kij table of the cubic models, each
+	// value with its source; pairs not listed use kij = 0.
+	BinaryInteraction []ApiDefaultInteractionOut `json:"binary_interaction"`
+	Components        []ApiComponentOut          `json:"components"`
+
+	// HeatCapacityHandOver HeatCapacityHandOver says how cp is made continuous where one range
+	// of a component's correlation hands over to the next (the ranges in
+	// heat_capacity are the published ones).
+	HeatCapacityHandOver string          `json:"heat_capacity_hand_over"`
+	Mixtures             []ApiMixtureOut `json:"mixtures"`
 }
 
 // ApiCpRangeOut defines model for api.CpRangeOut.
@@ -506,6 +531,28 @@ type ApiCpRangeOut struct {
 
 // ApiCpRangeOutForm Form is "shomate" (NIST, cp in J/(mol K) of t = T/1000) or "poly-r" (cp/R polynomial in T).
 type ApiCpRangeOutForm string
+
+// ApiDefaultInteractionOut defines model for api.DefaultInteractionOut.
+type ApiDefaultInteractionOut struct {
+	// Kij Kij is the binary interaction parameter, dimensionless.
+	//
+	// Example: 0.0919
+	Kij float64 `json:"kij"`
+
+	// Model Model is "peng-robinson" or "srk".
+	//
+	// Example: peng-robinson
+	Model string `json:"model"`
+
+	// Pair Pair names the two components by catalogue id.
+	//
+	// Example: ["methane","carbon-dioxide"]
+	Pair []string `json:"pair"`
+
+	// Source Source is the publication the value comes from, "given in the
+	// request", or a note that no built-in value exists (then kij is 0).
+	Source string `json:"source"`
+}
 
 // ApiDefaultOut defines model for api.DefaultOut.
 type ApiDefaultOut struct {
@@ -1263,6 +1310,11 @@ type ApiPropertiesResponsePhase string
 
 // ApiProvenanceOut defines model for api.ProvenanceOut.
 type ApiProvenanceOut struct {
+	// BinaryInteraction BinaryInteraction lists, for the peng-robinson and srk models, the kij
+	// used for every pair of components with its source (absent for the
+	// other models).
+	BinaryInteraction *[]ApiBinaryInteractionOut `json:"binary_interaction,omitempty"`
+
 	// DefaultsApplied DefaultsApplied lists every default the service filled in.
 	DefaultsApplied []ApiDefaultOut `json:"defaults_applied"`
 
@@ -2891,7 +2943,7 @@ type ClientInterface interface {
 
 	// GasComponents The gas component catalogue
 	//
-	// Every component with its molar mass, critical constants, acentric factor, ideal-gas cp correlations and their sources, and the named mixtures.
+	// Every component with its molar mass, critical constants, acentric factor, ideal-gas cp correlations and their sources, the named mixtures, the built-in binary interaction parameters (kij) of the cubic models with their sources, and how cp is made continuous between correlation ranges.
 	//
 	// Corresponds with GET /v1/gas/components (the `GasComponents` operationId).
 	GasComponents(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error)
@@ -3007,7 +3059,7 @@ func (c *Client) GetReadyz(ctx context.Context, reqEditors ...RequestEditorFn) (
 
 // GasComponents The gas component catalogue
 //
-// Every component with its molar mass, critical constants, acentric factor, ideal-gas cp correlations and their sources, and the named mixtures.
+// Every component with its molar mass, critical constants, acentric factor, ideal-gas cp correlations and their sources, the named mixtures, the built-in binary interaction parameters (kij) of the cubic models with their sources, and how cp is made continuous between correlation ranges.
 //
 // Corresponds with GET /v1/gas/components (the `GasComponents` operationId).
 func (c *Client) GasComponents(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error) {
@@ -3477,7 +3529,7 @@ type ClientWithResponsesInterface interface {
 
 	// GasComponentsWithResponse The gas component catalogue
 	//
-	// Every component with its molar mass, critical constants, acentric factor, ideal-gas cp correlations and their sources, and the named mixtures.
+	// Every component with its molar mass, critical constants, acentric factor, ideal-gas cp correlations and their sources, the named mixtures, the built-in binary interaction parameters (kij) of the cubic models with their sources, and how cp is made continuous between correlation ranges.
 	//
 	// Returns a wrapper object for the known response body format(s).
 	//
@@ -4073,7 +4125,7 @@ func (c *ClientWithResponses) GetReadyzWithResponse(ctx context.Context, reqEdit
 
 // GasComponentsWithResponse The gas component catalogue
 //
-// Every component with its molar mass, critical constants, acentric factor, ideal-gas cp correlations and their sources, and the named mixtures.
+// Every component with its molar mass, critical constants, acentric factor, ideal-gas cp correlations and their sources, the named mixtures, the built-in binary interaction parameters (kij) of the cubic models with their sources, and how cp is made continuous between correlation ranges.
 //
 // Returns a wrapper object for the known response body format(s).
 //

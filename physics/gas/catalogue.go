@@ -41,7 +41,7 @@ func (c Component) TemperatureRange() (lo, hi physics.Kelvin) {
 
 // Source texts shared by several components.
 const (
-	srcShomate = "ideal-gas cp: NIST Chemistry WebBook, Shomate equation (M. W. Chase, NIST-JANAF Thermochemical Tables, 4th ed., J. Phys. Chem. Ref. Data Monograph 9, 1998)"
+	srcShomate = "ideal-gas cp: NIST Chemistry WebBook, Shomate equation (M. W. Chase, NIST-JANAF Thermochemical Tables, 4th ed., J. Phys. Chem. Ref. Data Monograph 9, 1998); coefficients as in testdata/reference/shomate.csv, which says which were confirmed by stored copies and which are from memory"
 	srcPoling  = "ideal-gas cp: B. E. Poling, J. M. Prausnitz, J. P. O'Connell, The Properties of Gases and Liquids, 5th ed. (2001), Appendix A Section C, cp/R polynomial; coefficients from memory"
 	srcCrit    = "M, Tc, Pc, omega: values of the reference equation of state "
 	srcMono    = "ideal-gas cp: monatomic ideal gas, cp = 5/2 R (kinetic theory; NIST Shomate A = 20.786 J/(mol K) for argon agrees)"

@@ -62,14 +62,29 @@ const (
 	ExtrapolationAbove physics.Kelvin = 200
 )
 
+// HandOverWidth is the width of the temperature band below each boundary
+// between two ranges of a component's cp correlation over which the range
+// below is blended into the range above (see HandOverMethod).
+const HandOverWidth physics.Kelvin = 50
+
+// HandOverMethod describes how cp is made continuous where one published
+// correlation hands over to the next, for provenance and the catalogue.
+const HandOverMethod = "cp hand-over between ranges: two published fits differ at their common boundary (CH4 -0.36 %, CO2 +0.29 %, H2 +0.22 %, CO +0.41 % at 298 K, water -0.44 % at 500 K); " +
+	"the range below each boundary carries, over the 50 K below it (half the range if shorter), a cubic correction x²(α + βx) (x = T − (Tb − 50 K)) that brings its cp and dcp/dT to the values of the range above at Tb, " +
+	"so cp and its slope are continuous and the range above is used as published; h and s° are the analytic integrals of the corrected cp (this project's construction)"
+
 // cpPiece is a CpRange prepared for evaluation: the enthalpy and entropy
 // integration constants make h and s° continuous at the range boundaries and
-// zero at ReferenceTemperature.
+// zero at ReferenceTemperature; a piece followed by another carries the
+// hand-over correction x²(α + βx), x = T − ta, over [ta, tTop].
 type cpPiece struct {
 	form       CpForm
 	tLow, tTop float64
 	c          [5]float64
 	hOff, sOff float64 // J/mol and J/(mol K)
+	// hand-over correction; ta = tTop when there is none
+	ta          float64
+	alpha, beta float64 // J/(mol K³), J/(mol K⁴)
 }
 
 // cpTerm is a weighted species inside a prepared mixture (a component or a
@@ -89,7 +104,28 @@ type cpTerm struct {
 //
 // Source: NIST Chemistry WebBook, Shomate equation notes (Chase 1998,
 // NIST-JANAF 4th ed.); the polynomial integrals are elementary.
+//
+// Above ta the hand-over correction adds, with x = T − ta and L = ln(T/ta),
+//
+//	Δcp = x²(α + βx),  ∫Δcp dT = αx³/3 + βx⁴/4,
+//	∫Δcp/T dT = α(x²/2 − ta x + ta² L) + β(x³/3 − ta x²/2 + ta² x − ta³ L)
+//
+// (elementary: x²/T = x − ta + ta²/T and x³/T = x² − ta x + ta² − ta³/T).
 func (p *cpPiece) primitive(t float64) (cp, h, s float64) {
+	cp, h, s = p.published(t)
+	if t > p.ta {
+		x, ta := t-p.ta, p.ta
+		l := math.Log1p(x / ta)
+		cp += x * x * (p.alpha + p.beta*x)
+		h += x * x * x * (p.alpha/3 + p.beta*x/4)
+		s += p.alpha*(x*x/2-ta*x+ta*ta*l) + p.beta*(x*x*x/3-ta*x*x/2+ta*ta*x-ta*ta*ta*l)
+	}
+	return cp, h, s
+}
+
+// published returns cp and the antiderivatives of cp and cp/T of the
+// piece's published correlation (no hand-over correction).
+func (p *cpPiece) published(t float64) (cp, h, s float64) {
 	c := &p.c
 	if p.form == FormShomate {
 		x := t / 1000
@@ -106,13 +142,46 @@ func (p *cpPiece) primitive(t float64) (cp, h, s float64) {
 	return cp, h, s
 }
 
-// preparePieces turns contiguous ranges into pieces with stitched
+// publishedSlope returns dcp/dT (J/(mol K²)) of the published correlation.
+func (p *cpPiece) publishedSlope(t float64) float64 {
+	c := &p.c
+	if p.form == FormShomate {
+		x := t / 1000
+		return (c[1] + x*(2*c[2]+3*x*c[3]) - 2*c[4]/(x*x*x)) / 1000
+	}
+	return physics.UniversalGasConstant * (c[1] + t*(2*c[2]+t*(3*c[3]+4*t*c[4])))
+}
+
+// handOver sets the correction of piece lo, followed by piece hi at
+// boundary tb, so that lo's cp and dcp/dT equal hi's at tb: over
+// [ta, tb], ta = tb − w, w = min(HandOverWidth, half of lo's range),
+//
+//	Δcp = x²(α + βx),  α = (3J − J′w)/w²,  β = (J′w − 2J)/w³
+//
+// with J and J′ the steps of cp and dcp/dT at tb (Δ(ta) = Δ′(ta) = 0,
+// Δ(tb) = J, Δ′(tb) = J′: a cubic Hermite segment).
+func handOver(lo, hi *cpPiece) {
+	tb := lo.tTop
+	w := math.Min(float64(HandOverWidth), (lo.tTop-lo.tLow)/2)
+	cpA, _, _ := lo.published(tb)
+	cpB, _, _ := hi.published(tb)
+	j, jp := cpB-cpA, hi.publishedSlope(tb)-lo.publishedSlope(tb)
+	lo.ta = tb - w
+	lo.alpha = (3*j - jp*w) / (w * w)
+	lo.beta = (jp*w - 2*j) / (w * w * w)
+}
+
+// preparePieces turns contiguous ranges into pieces with the hand-over
+// correction below every boundary (cp and dcp/dT continuous) and stitched
 // integration constants so that h(Tref) = 0 and s°(Tref) = 0 and h, s° are
 // continuous at every boundary.
 func preparePieces(ranges []CpRange) []cpPiece {
 	ps := make([]cpPiece, len(ranges))
 	for i, r := range ranges {
-		ps[i] = cpPiece{form: r.Form, tLow: float64(r.TLow), tTop: float64(r.THigh), c: r.Coef}
+		ps[i] = cpPiece{form: r.Form, tLow: float64(r.TLow), tTop: float64(r.THigh), c: r.Coef, ta: float64(r.THigh)}
+	}
+	for i := 1; i < len(ps); i++ {
+		handOver(&ps[i-1], &ps[i])
 	}
 	tref := float64(ReferenceTemperature)
 	k0 := len(ps) - 1

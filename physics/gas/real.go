@@ -18,15 +18,32 @@ type BinaryParameter struct {
 	Source string
 }
 
-// Source of the default interaction parameters.
-const srcKnapp = "H. Knapp, R. Döring, L. Oellrich, U. Plöcker, J. M. Prausnitz, Vapor-Liquid Equilibria for Mixtures of Low Boiling Substances, DECHEMA Chemistry Data Series Vol. VI (1982); values from memory"
+// Sources of the default interaction parameters.
+const (
+	srcKnapp    = "H. Knapp, R. Döring, L. Oellrich, U. Plöcker, J. M. Prausnitz, Vapor-Liquid Equilibria for Mixtures of Low Boiling Substances, DECHEMA Chemistry Data Series Vol. VI (1982), Peng-Robinson table; value from memory (no stored copy checked)"
+	srcKnappSRK = "H. Knapp et al., DECHEMA Chemistry Data Series Vol. VI (1982), Soave-Redlich-Kwong table; value from memory (no stored copy checked)"
+	// SourceNoDefault is the source of a pair without a built-in value.
+	SourceNoDefault = "no built-in value: kij = 0, the mixing rule's neutral value (no published value for this pair and model could be checked here)"
+	// SourceHydrocarbons is the source of a hydrocarbon-hydrocarbon pair
+	// without a built-in value.
+	SourceHydrocarbons = "no built-in value: kij = 0, as hydrocarbon-hydrocarbon pairs usually are for the cubic equations (common practice, no source)"
+	// SourceRequest is the source of a caller's value.
+	SourceRequest = "given in the request"
+)
 
 // DefaultBinaryParameters returns the built-in kij table of the model
-// ("peng-robinson" or "srk"; any other name has none), a fresh slice. Pairs
-// not listed have kij = 0; a caller's BinaryParameter for the same pair
-// replaces the table value. Values are from memory (Knapp et al. 1982) and
-// rounded to what is commonly used for natural gas and air: treat them as
-// typical, not fitted to a particular data set.
+// ("peng-robinson" or "srk"; any other name has none), a fresh slice, each
+// pair with its source. Pairs not listed have kij = 0 (SourceNoDefault);
+// a caller's BinaryParameter for the same pair replaces the table value.
+// The Peng-Robinson values are those of the Knapp et al. (1982) table as
+// commonly reproduced for natural gas, sour gas and air, recalled from
+// memory (the project holds no stored copy of the table): treat them as
+// typical, not fitted to a particular data set. No value is built in for
+// the hydrogen pairs: cubic-equation kij for hydrogen are usually fitted
+// with effective (quantum-corrected) critical constants of hydrogen, which
+// the catalogue does not use, so a published value would not carry over;
+// they stay 0 and the provenance says so. The SRK table is shorter than
+// the PR one for the same reason of what could be recalled with confidence.
 func DefaultBinaryParameters(model string) []BinaryParameter {
 	switch model {
 	case "peng-robinson":
@@ -34,10 +51,26 @@ func DefaultBinaryParameters(model string) []BinaryParameter {
 			{"methane", "carbon-dioxide", 0.0919, srcKnapp},
 			{"nitrogen", "methane", 0.0311, srcKnapp},
 			{"nitrogen", "ethane", 0.0515, srcKnapp},
+			{"nitrogen", "propane", 0.0852, srcKnapp},
+			{"nitrogen", "isobutane", 0.1033, srcKnapp},
+			{"nitrogen", "n-butane", 0.0800, srcKnapp},
+			{"nitrogen", "isopentane", 0.0922, srcKnapp},
+			{"nitrogen", "n-pentane", 0.1000, srcKnapp},
+			{"nitrogen", "n-hexane", 0.1496, srcKnapp},
 			{"nitrogen", "carbon-dioxide", -0.0170, srcKnapp},
+			{"nitrogen", "hydrogen-sulfide", 0.1767, srcKnapp},
 			{"ethane", "carbon-dioxide", 0.1322, srcKnapp},
 			{"propane", "carbon-dioxide", 0.1241, srcKnapp},
+			{"isobutane", "carbon-dioxide", 0.1200, srcKnapp},
+			{"n-butane", "carbon-dioxide", 0.1333, srcKnapp},
+			{"isopentane", "carbon-dioxide", 0.1219, srcKnapp},
+			{"n-pentane", "carbon-dioxide", 0.1222, srcKnapp},
+			{"n-hexane", "carbon-dioxide", 0.1100, srcKnapp},
 			{"methane", "hydrogen-sulfide", 0.0850, srcKnapp},
+			{"ethane", "hydrogen-sulfide", 0.0840, srcKnapp},
+			{"propane", "hydrogen-sulfide", 0.0750, srcKnapp},
+			{"isobutane", "hydrogen-sulfide", 0.0500, srcKnapp},
+			{"n-butane", "hydrogen-sulfide", 0.0600, srcKnapp},
 			{"carbon-dioxide", "hydrogen-sulfide", 0.0974, srcKnapp},
 			{"nitrogen", "oxygen", -0.0119, srcKnapp},
 			{"nitrogen", "argon", -0.0026, srcKnapp},
@@ -45,9 +78,9 @@ func DefaultBinaryParameters(model string) []BinaryParameter {
 		}
 	case "srk":
 		return []BinaryParameter{
-			{"methane", "carbon-dioxide", 0.0933, srcKnapp},
-			{"nitrogen", "methane", 0.0278, srcKnapp},
-			{"ethane", "carbon-dioxide", 0.1363, srcKnapp},
+			{"methane", "carbon-dioxide", 0.0933, srcKnappSRK},
+			{"nitrogen", "methane", 0.0278, srcKnappSRK},
+			{"ethane", "carbon-dioxide", 0.1363, srcKnappSRK},
 		}
 	}
 	return nil
@@ -82,6 +115,7 @@ type Real struct {
 	pcK   float64 // Kay's-rule pseudo-critical pressure Σ x Pc
 	tLo   float64
 	tHi   float64
+	kij   []BinaryParameter // every pair i < j with the value used and its source
 }
 
 // NewReal returns the Peng-Robinson (kind cubic.PengRobinson) or SRK
@@ -95,14 +129,14 @@ func NewReal(kind cubic.Kind, c Composition, kij []BinaryParameter) (Real, error
 	}
 	name := kind.String()
 	n := c.Len()
-	k, err := interactionMatrix(name, c, kij)
+	k, used, err := interactions(name, c, kij)
 	if err != nil {
 		return Real{}, err
 	}
 	tc := make([]physics.Kelvin, n)
 	pc := make([]physics.Pascal, n)
 	om := make([]float64, n)
-	r := Real{name: name, comp: c, ig: ig, x: c.MoleFractions()}
+	r := Real{name: name, comp: c, ig: ig, x: c.MoleFractions(), kij: used}
 	nonzero := 0
 	for i := 0; i < n; i++ {
 		comp := c.Component(i)
@@ -124,13 +158,15 @@ func NewReal(kind cubic.Kind, c Composition, kij []BinaryParameter) (Real, error
 	return r, nil
 }
 
-// interactionMatrix builds the n×n kij matrix from the default table of
-// model and the caller's overrides.
-func interactionMatrix(model string, c Composition, kij []BinaryParameter) ([][]float64, error) {
+// interactions builds the n×n kij matrix and, for every pair i < j of c,
+// the value used with its source (table, request or none).
+func interactions(model string, c Composition, kij []BinaryParameter) ([][]float64, []BinaryParameter, error) {
 	n := c.Len()
 	k := make([][]float64, n)
+	src := make([][]string, n)
 	for i := range k {
 		k[i] = make([]float64, n)
+		src[i] = make([]string, n)
 	}
 	index := func(name string) int {
 		id, ok := componentID(name)
@@ -148,6 +184,7 @@ func interactionMatrix(model string, c Composition, kij []BinaryParameter) ([][]
 		i, j := index(bp.A), index(bp.B)
 		if i >= 0 && j >= 0 {
 			k[i][j], k[j][i] = bp.Kij, bp.Kij
+			src[i][j], src[j][i] = bp.Source, bp.Source
 		}
 	}
 	seen := make(map[[2]int]bool, len(kij))
@@ -155,30 +192,45 @@ func interactionMatrix(model string, c Composition, kij []BinaryParameter) ([][]
 		field := "kij[" + itoa(q) + "]"
 		for _, nm := range []string{bp.A, bp.B} {
 			if _, err := LookupComponent(nm); err != nil {
-				return nil, err
+				return nil, nil, err
 			}
 		}
 		i, j := index(bp.A), index(bp.B)
 		switch {
 		case i < 0 || j < 0:
-			return nil, &physics.DomainError{Name: field, Value: bp.Kij, Want: "a pair of components of the gas",
+			return nil, nil, &physics.DomainError{Name: field, Value: bp.Kij, Want: "a pair of components of the gas",
 				Reason: "binary parameter " + bp.A + "/" + bp.B + " names a component that is not in the gas composition"}
 		case i == j:
-			return nil, &physics.DomainError{Name: field, Value: bp.Kij, Want: "two different components",
+			return nil, nil, &physics.DomainError{Name: field, Value: bp.Kij, Want: "two different components",
 				Reason: "binary parameter " + bp.A + "/" + bp.B + " must name two different components"}
 		case !(math.Abs(bp.Kij) < 1):
-			return nil, &physics.DomainError{Name: field, Value: bp.Kij, Want: "finite, -1 < kij < 1",
+			return nil, nil, &physics.DomainError{Name: field, Value: bp.Kij, Want: "finite, -1 < kij < 1",
 				Reason: "binary parameter " + bp.A + "/" + bp.B + " must be a number between -1 and 1"}
 		}
 		key := [2]int{min(i, j), max(i, j)}
 		if seen[key] {
-			return nil, &physics.DomainError{Name: field, Value: bp.Kij, Want: "each pair once",
+			return nil, nil, &physics.DomainError{Name: field, Value: bp.Kij, Want: "each pair once",
 				Reason: "binary parameter " + bp.A + "/" + bp.B + " is given more than once"}
 		}
 		seen[key] = true
 		k[i][j], k[j][i] = bp.Kij, bp.Kij
+		src[i][j], src[j][i] = SourceRequest, SourceRequest
 	}
-	return k, nil
+	used := make([]BinaryParameter, 0, n*(n-1)/2)
+	for i := 0; i < n; i++ {
+		for j := i + 1; j < n; j++ {
+			s := src[i][j]
+			switch {
+			case s != "":
+			case hydrocarbon(c.comps[i]) && hydrocarbon(c.comps[j]):
+				s = SourceHydrocarbons
+			default:
+				s = SourceNoDefault
+			}
+			used = append(used, BinaryParameter{A: c.comps[i].ID, B: c.comps[j].ID, Kij: k[i][j], Source: s})
+		}
+	}
+	return k, used, nil
 }
 
 // NewModel returns the gas model the service selects by name: "ideal"
@@ -208,6 +260,14 @@ func NewModel(name string, comp Composition, kij []BinaryParameter) (Model, erro
 
 // Name returns "peng-robinson" or "srk".
 func (m Real) Name() string { return m.name }
+
+// BinaryParameters returns the kij the model uses for every pair of its
+// components (catalogue ids, in composition order), each with its source:
+// the built-in table (DefaultBinaryParameters), the caller
+// (SourceRequest) or none (SourceNoDefault, kij = 0). A fresh slice.
+func (m Real) BinaryParameters() []BinaryParameter {
+	return append([]BinaryParameter(nil), m.kij...)
+}
 
 // MolarMass returns the mixture molar mass in kg/mol.
 func (m Real) MolarMass() float64 { return m.ig.m }
@@ -373,4 +433,11 @@ func (m Real) GasStateFromPS(p physics.Pascal, s physics.JoulePerKgK) (State, er
 // dew point.
 func (m Real) DewTemperature(p physics.Pascal) (physics.Kelvin, error) {
 	return m.eos.DewTemperature(m.x, p)
+}
+
+// hydrocarbon reports whether a catalogue component is a hydrocarbon (its
+// formula holds only carbon and hydrogen).
+func hydrocarbon(c Component) bool {
+	f := strings.TrimLeft(c.Formula, "in-")
+	return strings.Contains(f, "C") && strings.Contains(f, "H") && !strings.ContainsAny(f, "ONSae")
 }

@@ -100,7 +100,7 @@ func TestOtherRulesHaveSources(t *testing.T) {
 	for _, r := range []limits.Rule{limits.InducerRelativeMach(), limits.MachineMach(), limits.DiffuserInletMach(false),
 		limits.DiffuserInletMach(true), limits.DiffuserFlowAngle(), limits.FlowCoefficientLow(), limits.FlowCoefficientHigh(),
 		limits.ExitWidthNarrow(), limits.ExitWidthWide(), limits.HeadCoefficientLow(), limits.HeadCoefficientHigh(),
-		limits.ClosedImpellerHead(), limits.RelativeVelocityRatio(), limits.SpecificSpeedLow(), limits.SpecificSpeedHigh(),
+		limits.ClosedImpellerHead(), limits.RelativeVelocityRatio(), limits.RelativeVelocityRatioHigh(), limits.SpecificSpeedLow(), limits.SpecificSpeedHigh(),
 		limits.EyeTipRatio(), limits.DriverMarginRule(), limits.StagePressureRatio(limits.ClosedSteel),
 		limits.StagePressureRatio(limits.OpenSteel)} {
 		assert.NotEmpty(t, r.Basis, r.ID)
@@ -146,6 +146,8 @@ func TestWarningCodes(t *testing.T) {
 		{limits.ExitWidthWide(), "exit-width-ratio", "exit-width-ratio-high"},
 		{limits.StagePressureRatio(limits.OpenSteel), "stage-pressure-ratio", "stage-pressure-ratio"},
 		{limits.DriverMarginRule(), "driver-margin", "driver-margin"},
+		{limits.RelativeVelocityRatio(), "relative-velocity-ratio", "relative-velocity-ratio"},
+		{limits.RelativeVelocityRatioHigh(), "relative-velocity-ratio", "relative-velocity-ratio-high"},
 	}
 	for _, tc := range cases {
 		assert.Equal(t, tc.code, tc.r.Code)
@@ -222,7 +224,7 @@ func allRules(t *testing.T) []limits.Rule {
 	rules := []limits.Rule{limits.InducerRelativeMach(), limits.MachineMach(), limits.DiffuserInletMach(false),
 		limits.DiffuserInletMach(true), limits.DiffuserFlowAngle(), limits.FlowCoefficientLow(), limits.FlowCoefficientHigh(),
 		limits.ExitWidthNarrow(), limits.ExitWidthWide(), limits.HeadCoefficientLow(), limits.HeadCoefficientHigh(),
-		limits.ClosedImpellerHead(), limits.RelativeVelocityRatio(), limits.SpecificSpeedLow(), limits.SpecificSpeedHigh(),
+		limits.ClosedImpellerHead(), limits.RelativeVelocityRatio(), limits.RelativeVelocityRatioHigh(), limits.SpecificSpeedLow(), limits.SpecificSpeedHigh(),
 		limits.EyeTipRatio(), limits.DriverMarginRule()}
 	for _, c := range limits.Constructions() {
 		r, err := limits.TipSpeed(c)
@@ -271,4 +273,46 @@ func TestEveryRuleAroundItsLevels(t *testing.T) {
 		assert.Equal(t, limits.Warning, grade(r.Limit), "%s at the limit", r.ID)
 		assert.Equal(t, limits.Limit, grade(r.Limit+toward*0.01*math.Abs(r.Limit)), "%s past the limit", r.ID)
 	}
+}
+
+// W2/W1 is graded on both sides (issue 12): diffusion below 0.7 and
+// acceleration above 1.0 (warning) and 1.2 (limit), common practice, no
+// source (see the rules' Basis). The values of the audit: 1.05 and 1.12 in
+// two demo duties (warnings) and 2.06 for a natural-gas duty (limit); 0.85,
+// inside the usual diffusion range, is ok on both sides.
+func TestRelativeVelocityRatioBothSides(t *testing.T) {
+	low, high := limits.RelativeVelocityRatio(), limits.RelativeVelocityRatioHigh()
+	assert.Equal(t, low.Code, high.Code, "the low and high rules of one quantity share a code")
+	assert.NotEqual(t, low.ID, high.ID, "each has its own limit_overrides key")
+	assert.Equal(t, limits.Above, high.Sense)
+	assert.InDelta(t, 1.0, high.Warning, 1e-12)
+	assert.InDelta(t, 1.2, high.Limit, 1e-12)
+	assert.Contains(t, high.Basis, "common practice")
+	cases := []struct {
+		v         float64
+		low, high limits.Severity
+	}{
+		{0.60, limits.Warning, limits.OK},
+		{0.70, limits.Notice, limits.OK},
+		{0.85, limits.OK, limits.OK},
+		{0.94, limits.OK, limits.OK},
+		{0.96, limits.OK, limits.Notice},
+		{1.00, limits.OK, limits.Notice},
+		{1.05, limits.OK, limits.Warning},
+		{1.12, limits.OK, limits.Warning},
+		{1.20, limits.OK, limits.Warning},
+		{1.21, limits.OK, limits.Limit},
+		{2.06, limits.OK, limits.Limit},
+	}
+	for _, tc := range cases {
+		a, err := low.Check(tc.v)
+		require.NoError(t, err)
+		assert.Equal(t, tc.low, a.Severity, "low rule at W2/W1 = %g", tc.v)
+		b, err := high.Check(tc.v)
+		require.NoError(t, err)
+		assert.Equal(t, tc.high, b.Severity, "high rule at W2/W1 = %g", tc.v)
+	}
+	b, err := high.Check(1.05)
+	require.NoError(t, err)
+	assert.Contains(t, b.Message(), "exceeds the warning level of 1")
 }

@@ -160,12 +160,29 @@ func ClosedImpellerHead() Rule {
 		Warning: 40e3, Limit: math.NaN(), Basis: commonPractice}
 }
 
-// RelativeVelocityRatio is the impeller diffusion rule: W2/W1 below 0.7 means too much diffusion in the
-// impeller (rules-of-thumb.md §8, a de Haller-type limit carried over from
-// axial practice; common practice, no source).
+// RelativeVelocityRatio is the impeller diffusion rule (the low side of
+// W2/W1): W2/W1 below 0.7 means too much diffusion in the impeller
+// (rules-of-thumb.md §8, a de Haller-type limit carried over from axial
+// practice; common practice, no source). Its ID, "relative-velocity-ratio",
+// predates the high rule and is kept: it is the key of limit_overrides.
 func RelativeVelocityRatio() Rule {
 	return Rule{ID: "relative-velocity-ratio", Code: "relative-velocity-ratio", Quantity: "relative velocity ratio W2/W1 (shroud)", Unit: "-", Sense: Below,
 		Warning: 0.7, Limit: math.NaN(), Basis: commonPractice}
+}
+
+// RelativeVelocityRatioHigh is the impeller acceleration rule (the high
+// side of W2/W1, same code as RelativeVelocityRatio, ID
+// "relative-velocity-ratio-high"): an impeller passage is a diffuser, so a
+// relative velocity at the tip above that at the eye shroud (W2/W1 > 1)
+// means the relative flow accelerates through the impeller: the exit is too
+// narrow or the exit meridional velocity too high for the eye, and the
+// impeller recovers none of its relative kinetic energy. Warning above 1.0
+// (no diffusion at all), limit above 1.2. Common practice, no source; the
+// usual design range of the diffusion ratio W1t/W2 is about 1.2-1.9
+// (W2/W1 0.5-0.85), from memory (Dixon & Hall 2014, centrifugal chapter).
+func RelativeVelocityRatioHigh() Rule {
+	return Rule{ID: "relative-velocity-ratio-high", Code: "relative-velocity-ratio", Quantity: "relative velocity ratio W2/W1 (shroud)", Unit: "-", Sense: Above,
+		Warning: 1.0, Limit: 1.2, Basis: commonPractice + "; W2/W1 above 1 means the relative flow accelerates through the impeller (no diffusion): the exit is too narrow or its meridional velocity too high for the eye; a usual design diffusion ratio W1t/W2 is 1.2-1.9, from memory (Dixon & Hall 2014)"}
 }
 
 // SpecificSpeedLow is the lower specific-speed rule; with

@@ -53,9 +53,16 @@ const (
 // Source: M. V. Casey and C. J. Robinson, "A method to estimate the
 // performance map of a centrifugal compressor stage", ASME J.
 // Turbomachinery 135(2):021034 (2013). The form and every coefficient are
-// from memory and were not checked against the paper itself. The Reynolds-number
-// and roughness corrections of the paper (η_max depends on them) are not
-// included: η_max = 0.86 stands for a large industrial stage.
+// from memory and could not be checked against the paper: a search of the
+// stored literature (issue 12) found the paper's abstract but not its
+// equations, nor those of the later papers of the same authors
+// (EfficiencyCorrelationUncertainty says so in every answer). Two public
+// third-party transcriptions turned up by the same search (code, not the
+// paper) carry the same tip-Mach term −(0.05 + 3P)P with P = φ_CR (Mu2 −
+// 0.8), and one the whole form with these coefficients: that supports the
+// recall but does not verify it. The
+// Reynolds-number and roughness corrections of the paper (η_max depends on
+// them) are not included: η_max = 0.86 stands for a large industrial stage.
 //
 // Range (from memory): 0.01 ≤ φ_CR ≤ 0.15 (0.0127 ≤ φ ≤ 0.191) and
 // 0 < Mu2 ≤ 1.4. Outside it InRange is false and the value is that at the
@@ -74,7 +81,7 @@ func PolytropicEfficiencyEstimate(flowCoefficient, tipMach float64) (EfficiencyE
 	phi := flowCoefficient * math.Pi / 4
 	mu := tipMach
 	in := true
-	note := "Casey & Robinson (2013) peak polytropic efficiency in flow coefficient and tip Mach number (coefficients from memory; no Reynolds-number correction)"
+	note := "Casey & Robinson (2013) peak polytropic efficiency in flow coefficient and tip Mach number (form and coefficients from memory, not checked against the paper: the estimate may differ from the published correlation by an unknown amount; no Reynolds-number correction)"
 	// the edges themselves are in range (1e-9 absorbs the φ π/4 round-off)
 	if phi < crPhiLow*(1-1e-9) || phi > crPhiHigh*(1+1e-9) {
 		in = false

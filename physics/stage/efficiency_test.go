@@ -15,9 +15,11 @@ import (
 // Q01/(U2 π D2²/4): φ = φ_CR · 4/π.
 func ours(phiCR float64) float64 { return phiCR * 4 / math.Pi }
 
-// TestPolytropicEfficiencyEstimatePoints: point values of the Casey &
-// Robinson (2013) correlation, form and coefficients from memory (see the
-// doc comment), evaluated here with python3 from that form.
+// TestPolytropicEfficiencyEstimatePoints checks the code against the
+// equation its doc comment states (form and coefficients from memory,
+// unverified: no stored copy of the paper's equations was found), at
+// values evaluated here with python3 from that equation. It checks the
+// implementation of the stated equation, not the paper.
 func TestPolytropicEfficiencyEstimatePoints(t *testing.T) {
 	cases := []struct {
 		name       string
@@ -44,44 +46,52 @@ func TestPolytropicEfficiencyEstimatePoints(t *testing.T) {
 	}
 }
 
-// TestPolytropicEfficiencyEstimateShape checks the properties the figures
-// of Casey & Robinson (2013) show (from memory): the peak lies near
-// φ_CR = 0.08 at 0.86-0.88 for moderate Mach numbers, efficiency falls
-// steeply below φ_CR ≈ 0.01-0.02 and more gently at high flow coefficient,
-// and it falls with tip Mach number above about 0.8 (none below).
+// TestPolytropicEfficiencyEstimateShape checks only the shape that has a
+// source outside the recalled correlation:
+//   - Casey & Robinson (2013), abstract (stored copy of the ASME page): the
+//     design-point efficiency is characterised by the flow coefficient and
+//     the tip-speed Mach number, so the estimate must depend on both;
+//   - rules-of-thumb.md §6 (common practice, no source): a good process
+//     stage reaches 0.75-0.86 polytropic, so the best estimate lies in that
+//     band, and so does every estimate in the near-best-efficiency flow
+//     coefficient band 0.06-0.10 of §5 at a moderate tip Mach number;
+//   - rules-of-thumb.md §5 (common practice, no source): efficiency falls
+//     steeply towards a flow coefficient of 0.01 (very narrow impellers):
+//     at the low end of the range the estimate lies well (5 points, our
+//     reading of "steeply") below every value in the near-best band.
+//
+// The figures of the paper (peak position, curvature, the Mach-number
+// penalty's size) are not checked: they are known only from memory.
 func TestPolytropicEfficiencyEstimateShape(t *testing.T) {
-	eta := func(phiCR, mu float64) float64 {
+	eta := func(phi, mu float64) float64 {
 		t.Helper()
-		e, err := stage.PolytropicEfficiencyEstimate(ours(phiCR), mu)
+		e, err := stage.PolytropicEfficiencyEstimate(phi, mu)
 		require.NoError(t, err)
 		return e.Value
 	}
-	// the maximum over a grid of φ_CR at Mu2 = 0.7 lies at 0.08
-	best, bestPhi := 0.0, 0.0
-	for p := 0.01; p <= 0.15+1e-9; p += 0.0025 {
-		if e := eta(p, 0.7); e > best {
-			best, bestPhi = e, p
-		}
+	lo, hi := stage.EfficiencyCorrelationFlowRange()
+	best, worstNearBest := 0.0, 1.0
+	for phi := lo; phi <= hi+1e-12; phi += 0.001 {
+		best = math.Max(best, eta(phi, 0.7))
 	}
-	assert.InDelta(t, 0.08, bestPhi, 0.0026)
-	assert.GreaterOrEqual(t, best, 0.86-1e-9)
-	assert.LessOrEqual(t, best, 0.88)
-	// steep fall at low flow coefficient: more than 10 points from 0.08 to
-	// 0.02, more than 20 to 0.01; the fall steepens towards low φ
-	assert.Greater(t, eta(0.08, 0.7)-eta(0.02, 0.7), 0.10)
-	assert.Greater(t, eta(0.08, 0.7)-eta(0.01, 0.7), 0.20)
-	assert.Greater(t, eta(0.02, 0.7)-eta(0.01, 0.7), eta(0.04, 0.7)-eta(0.03, 0.7))
-	// fall at high flow coefficient, gentler than at low flow
-	assert.Less(t, eta(0.15, 0.7), eta(0.12, 0.7))
-	assert.Less(t, eta(0.12, 0.7), eta(0.08, 0.7))
-	assert.Less(t, eta(0.08, 0.7)-eta(0.15, 0.7), eta(0.08, 0.7)-eta(0.02, 0.7))
-	// tip Mach: no effect at or below 0.8, a fall above, larger at high φ
-	assert.InDelta(t, eta(0.08, 0.5), eta(0.08, 0.8), 1e-12)
-	for _, p := range []float64{0.02, 0.08, 0.14} {
-		assert.Less(t, eta(p, 1.0), eta(p, 0.8), "phi_CR %v", p)
-		assert.Less(t, eta(p, 1.3), eta(p, 1.0), "phi_CR %v", p)
+	assert.GreaterOrEqual(t, best, 0.75, "best estimate in the band of a good process stage")
+	assert.LessOrEqual(t, best, 0.86+1e-9, "best estimate in the band of a good process stage")
+	for phi := 0.06; phi <= 0.10+1e-12; phi += 0.005 {
+		e := eta(phi, 0.7)
+		worstNearBest = math.Min(worstNearBest, e)
+		assert.GreaterOrEqual(t, e, 0.75, "φ = %g", phi)
+		assert.LessOrEqual(t, e, 0.86+1e-9, "φ = %g", phi)
 	}
-	assert.Greater(t, eta(0.14, 0.8)-eta(0.14, 1.3), eta(0.02, 0.8)-eta(0.02, 1.3))
+	assert.Greater(t, worstNearBest-eta(lo, 0.7), 0.05, "steep fall towards φ = 0.01")
+	// depends on both the flow coefficient and the tip Mach number
+	assert.NotEqual(t, eta(0.03, 0.7), eta(0.08, 0.7))
+	assert.NotEqual(t, eta(0.08, 0.7), eta(0.08, 1.3))
+	// the uncertainty is stated wherever the estimate is used
+	e, err := stage.PolytropicEfficiencyEstimate(0.08, 0.7)
+	require.NoError(t, err)
+	assert.Contains(t, e.Note, "not checked against the paper")
+	assert.Contains(t, stage.EfficiencyCorrelationSource, "UNVERIFIED")
+	assert.Contains(t, stage.EfficiencyCorrelationSource, "from memory")
 }
 
 // TestPolytropicEfficiencyEstimateRange: outside the stated range
