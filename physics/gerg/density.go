@@ -1,0 +1,122 @@
+package gerg
+
+import (
+	"math"
+
+	"stagewright/physics"
+)
+
+// noRoot is the error of a failed density search.
+type noRoot struct{ de *physics.DomainError }
+
+func (e noRoot) Error() string   { return e.de.Error() }
+func (e noRoot) Unwrap() []error { return []error{ErrNoRoot, e.de} }
+
+func noRootError(p float64, why string) error {
+	return noRoot{&physics.DomainError{Name: "pressure", Value: p, Want: "a state with a density root",
+		Reason: "GERG-2008 finds no " + why + " density at this temperature and pressure"}}
+}
+
+// density finds δ with p(δ) = p at the temperature of w.
+//
+// Vapour branch (liquid false): p(δ) rises from 0 at δ = 0 to the vapour
+// spinodal, where (∂p/∂δ)_T first reaches 0. Newton steps start from the
+// ideal gas inside a bracket [a, b]: a is the densest point seen with
+// (∂p/∂δ) > 0, p < target and p above every earlier such point (so still on
+// the rising vapour branch); b is any point with p ≥ target or with
+// (∂p/∂δ) ≤ 0 or with p below an earlier point (past the spinodal). Steps
+// that leave the bracket, or grow δ more than twofold, bisect. A bracket
+// that shrinks without reaching the target means the vapour branch ends
+// below it: then (and for liquid true) the liquid-like root is sought from
+// above, where p(δ) is steep and convex so that Newton steps stay above the
+// root. Failure is an error, never a root on the wrong branch.
+// Source: the strategy of the pack README ("start from the ideal gas, guard
+// against the unstable region where dp/drho <= 0, and report failure"),
+// with safeguarded Newton iteration (Press et al., Numerical Recipes, 3rd
+// ed., 2007, §9.4).
+func (mx *Mixture) density(t, p float64, w *tauWork, liquid bool) (float64, Branch, Residual, error) {
+	k := mx.rhor * R * t // p = k δ (1 + δα_δ)
+	eval := func(delta float64) (float64, float64, Residual) {
+		r := mx.residual(delta, w)
+		return k * delta * (1 + r.D), k * (1 + 2*r.D + r.DD), r
+	}
+	a, pa, b := 0.0, 0.0, math.Inf(1)
+	vapour := 0.0 // the vapour root, when liquid is asked for
+	delta := p / k
+	for range 200 {
+		pd, dpd, r := eval(delta)
+		stable := dpd > 0
+		switch {
+		case stable && pd < p && pd > pa:
+			a, pa = delta, pd
+		default:
+			b = min(b, delta)
+		}
+		if stable {
+			step := (p - pd) / dpd
+			if math.Abs(step) <= 1e-13*delta {
+				if !liquid {
+					return delta, Vapour, r, nil
+				}
+				vapour = delta
+				a = delta
+				break
+			}
+			if next := delta + step; next > a && next < b && next <= 2*delta {
+				delta = next
+				continue
+			}
+		}
+		if b-a <= 1e-12*b {
+			break // the vapour branch ends below the target
+		}
+		if math.IsInf(b, 1) {
+			delta *= 2
+		} else {
+			delta = 0.5 * (a + b)
+		}
+	}
+	// Liquid-like root, from above.
+	lo := a
+	delta = max(2*a, 2)
+	found := false
+	for range 60 {
+		pd, dpd, _ := eval(delta)
+		if dpd > 0 && pd > p {
+			found = true
+			break
+		}
+		delta *= 1.25
+	}
+	if !found {
+		return 0, LiquidOnly, Residual{}, noRootError(p, "liquid-like")
+	}
+	hi := delta
+	for range 200 {
+		pd, dpd, r := eval(delta)
+		stable := dpd > 0
+		if stable && pd >= p {
+			hi = delta
+		} else {
+			lo = max(lo, delta)
+		}
+		if stable {
+			step := (p - pd) / dpd
+			if math.Abs(step) <= 1e-13*delta {
+				if vapour > 0 && !(delta > vapour*(1+1e-6)) {
+					return 0, LiquidOnly, Residual{}, noRootError(p, "distinct liquid-like")
+				}
+				return delta, LiquidOnly, r, nil
+			}
+			if next := delta + step; next > lo && next < hi {
+				delta = next
+				continue
+			}
+		}
+		if hi-lo <= 1e-12*hi {
+			break
+		}
+		delta = 0.5 * (lo + hi)
+	}
+	return 0, LiquidOnly, Residual{}, noRootError(p, "converged")
+}
