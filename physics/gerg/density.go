@@ -54,7 +54,7 @@ func (mx *Mixture) density(t, p float64, w *tauWork, liquid bool) (float64, Bran
 		}
 		if stable {
 			step := (p - pd) / dpd
-			if math.Abs(step) <= 1e-13*delta {
+			if math.Abs(step) <= 1e-13*delta && math.Abs(pd-p) <= 1e-7*p {
 				if !liquid {
 					return delta, Vapour, r, nil
 				}
@@ -62,7 +62,7 @@ func (mx *Mixture) density(t, p float64, w *tauWork, liquid bool) (float64, Bran
 				a = delta
 				break
 			}
-			if next := delta + step; next > a && next < b && next <= 2*delta {
+			if next := delta + step; next > a && next < b && next <= 2*delta && math.Abs(step) > 1e-13*delta {
 				delta = next
 				continue
 			}
@@ -102,13 +102,13 @@ func (mx *Mixture) density(t, p float64, w *tauWork, liquid bool) (float64, Bran
 		}
 		if stable {
 			step := (p - pd) / dpd
-			if math.Abs(step) <= 1e-13*delta {
+			if math.Abs(step) <= 1e-13*delta && math.Abs(pd-p) <= 1e-7*p {
 				if vapour > 0 && !(delta > vapour*(1+1e-6)) {
 					return 0, LiquidOnly, Residual{}, noRootError(p, "distinct liquid-like")
 				}
 				return delta, LiquidOnly, r, nil
 			}
-			if next := delta + step; next > lo && next < hi {
+			if next := delta + step; next > lo && next < hi && math.Abs(step) > 1e-13*delta {
 				delta = next
 				continue
 			}
