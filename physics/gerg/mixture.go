@@ -340,3 +340,20 @@ func (mx *Mixture) Reducing() (tr, rhor float64) { return mx.tr, mx.rhor }
 
 // MoleFractions returns the normalised mole fractions (a copy).
 func (mx *Mixture) MoleFractions() [NumComponents]float64 { return mx.x }
+
+// IdealCp returns the ideal-gas isobaric heat capacity of component i
+// (0-based) at t in J/(mol K), the GERG-2008 correlation (Jaeschke & Schley
+// 1995, as the pack README writes it); 0 for an unknown index.
+func IdealCp(i int, t float64) float64 {
+	tb, err := loadTables()
+	if err != nil || i < 0 || i >= NumComponents {
+		return 0
+	}
+	id := tb.comps[i].ideal
+	ic := idealComp{x: 1, a: id[2] - 1}
+	for k := range 4 {
+		ic.n[k], ic.th[k] = id[3+2*k], id[4+2*k]
+	}
+	cp, _, _ := ic.eval(t)
+	return cp
+}
