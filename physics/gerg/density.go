@@ -42,7 +42,7 @@ func (mx *Mixture) density(t, p float64, w *tauWork, liquid bool) (float64, Bran
 	}
 	a, pa, b := 0.0, 0.0, math.Inf(1)
 	vapour := 0.0 // the vapour root, when liquid is asked for
-	delta := p / k
+	delta := mx.virialStart(p/k, w)
 	for range 200 {
 		pd, dpd, r := eval(delta)
 		stable := dpd > 0
@@ -119,4 +119,21 @@ func (mx *Mixture) density(t, p float64, w *tauWork, liquid bool) (float64, Bran
 		delta = 0.5 * (lo + hi)
 	}
 	return 0, LiquidOnly, Residual{}, noRootError(p, "converged")
+}
+
+// virialStart returns the start of the vapour-root search: the root of the
+// virial equation truncated after the second coefficient,
+// p = k δ (1 + B δ) with B = ∂α_r/∂δ at δ = 0, i.e.
+// δ = 2 δ_ig / (1 + sqrt(1 + 4 B δ_ig)) (δ_ig = p/k, the ideal gas); the
+// ideal gas where that has no root. It saves one or two Newton steps.
+func (mx *Mixture) virialStart(dIG float64, w *tauWork) float64 {
+	b := 0.0
+	for i, s := range mx.slope0 {
+		b += s * w.b[i]
+	}
+	disc := 1 + 4*b*dIG
+	if !(disc > 0) {
+		return dIG
+	}
+	return 2 * dIG / (1 + math.Sqrt(disc))
 }

@@ -24,16 +24,23 @@ type tauWork struct {
 // setTau fills w for τ.
 func (mx *Mixture) setTau(tau float64, w *tauWork) {
 	var pw [maxTVals]float64
+	var ti [maxTInt + 1]float64 // τ^i
+	var tj [tDiv]float64        // τ^(j/tDiv)
+	ti[0], tj[0] = 1, 1
+	for i := 1; i <= mx.tMaxI; i++ {
+		ti[i] = ti[i-1] * tau
+	}
 	lt := math.Log(tau)
-	for i, t := range mx.tvals {
-		switch t {
-		case 0:
-			pw[i] = 1
-		case 1:
-			pw[i] = tau
-		default:
-			pw[i] = math.Exp(t * lt)
+	r := math.Exp(lt / tDiv)
+	for j := 1; j < tDiv; j++ {
+		tj[j] = tj[j-1] * r
+	}
+	for i, tp := range mx.tpow {
+		if tp.exp {
+			pw[i] = math.Exp(mx.tvals[i] * lt)
+			continue
 		}
+		pw[i] = ti[tp.i] * tj[tp.j]
 	}
 	ng := len(mx.groups)
 	clear(w.b[:ng])

@@ -41,6 +41,7 @@ const (
 	maxTVals  = 320
 	maxD      = 10
 	maxC      = 6
+	maxTInt   = 31 // largest integer part of a tabulated exponent t
 )
 
 // group is a set of terms sharing the δ function: kind 0 is δ^d exp(−δ^c)
@@ -49,6 +50,31 @@ type group struct {
 	kind                  uint8
 	d, c                  int
 	eta, eps, beta, gamma float64
+}
+
+// slope0 returns f'(0) of the group's δ function: the group's share of
+// the second virial coefficient (only d = 1 contributes).
+func (g group) slope0() float64 {
+	switch {
+	case g.d != 1:
+		return 0
+	case g.kind == 1:
+		return math.Exp(-g.eta*g.eps*g.eps + g.beta*g.gamma)
+	}
+	return 1
+}
+
+// tDiv is the denominator of the exponents t that are formed from tables:
+// every t of GERG-2008 is a multiple of 1/40 (of 1/8 in the pure-fluid
+// equations, of 1/20 in the departure functions), so τ^t = τ^i · (τ^(1/40))^j
+// with t = i + j/40 costs two table look-ups instead of an exp and a log.
+const tDiv = 40
+
+// tPow says how τ^t is formed: from the tables (i, j) or, for an exponent
+// that is not a multiple of 1/tDiv, by exp(t ln τ) (exp true).
+type tPow struct {
+	i, j int32
+	exp  bool
 }
 
 // term is a weighted coefficient of a group: w τ^t, with t = tvals[ti].
@@ -75,8 +101,11 @@ type Mixture struct {
 	tr     float64 // K
 	rhor   float64 // mol/m³
 	groups []group
+	slope0 []float64 // group.slope0 of each group
 	terms  []term
 	tvals  []float64
+	tpow   []tPow // how to form τ^t for each of tvals
+	tMaxI  int    // largest integer part of a tabulated τ^t
 	ideal  []idealComp
 	smix   float64 // −R Σ x ln x
 	dMax   int
@@ -259,6 +288,19 @@ func (mx *Mixture) compile(tb *tables) {
 	for _, k := range order {
 		mx.terms = append(mx.terms, term{g: k.g, ti: k.ti, w: acc[k]})
 	}
+	for _, g := range mx.groups {
+		mx.slope0 = append(mx.slope0, g.slope0())
+	}
+	for _, t := range mx.tvals {
+		k := math.Round(t * tDiv)
+		if t >= 0 && math.Abs(k-t*tDiv) <= 1e-9 && k < tDiv*(maxTInt+1) {
+			tp := tPow{i: int32(k) / tDiv, j: int32(k) % tDiv}
+			mx.tpow = append(mx.tpow, tp)
+			mx.tMaxI = max(mx.tMaxI, int(tp.i))
+			continue
+		}
+		mx.tpow = append(mx.tpow, tPow{exp: true})
+	}
 }
 
 // prepareIdeal keeps the ideal-gas part of the components present.
@@ -297,19 +339,19 @@ func (ic *idealComp) eval(t float64) (cp, h, s float64) {
 		}
 		u := th / t
 		n := ic.n[k]
+		e1 := math.Exp(-u)
+		e := e1 * e1
 		if k%2 == 0 { // sinh terms
-			e := math.Exp(-2 * u)
 			coth := (1 + e) / (1 - e)
 			lnSinh := u + math.Log((1-e)/2)
-			q := u * 2 * math.Exp(-u) / (1 - e) // u/sinh u
+			q := u * 2 * e1 / (1 - e) // u/sinh u
 			sc += n * q * q
 			sh += n * th * coth
 			ss += n * (u*coth - lnSinh)
 		} else { // cosh terms
-			e := math.Exp(-2 * u)
 			tanh := (1 - e) / (1 + e)
 			lnCosh := u + math.Log((1+e)/2)
-			q := u * 2 * math.Exp(-u) / (1 + e) // u/cosh u
+			q := u * 2 * e1 / (1 + e) // u/cosh u
 			sc += n * q * q
 			sh -= n * th * tanh
 			ss += n * (lnCosh - u*tanh)

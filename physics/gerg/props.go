@@ -107,7 +107,22 @@ func (mx *Mixture) StateTP(t, p float64) (Props, error) {
 	}
 	pr := mx.props(t, delta, r)
 	pr.Branch = br
+	if !pr.physical() {
+		return Props{}, noRoot{&physics.DomainError{Name: "pressure", Value: p, Want: "a state with physical properties",
+			Reason: "GERG-2008 gives no physical state at this temperature and pressure (negative heat capacity or compressibility: far outside the range of the equation for this mixture)"}}
+	}
 	return pr, nil
+}
+
+// physical says whether a state is thermodynamically stable and finite:
+// cv > 0, (∂p/∂ρ)_T > 0, hence cp > cv and a real speed of sound.
+func (pr *Props) physical() bool {
+	for _, v := range []float64{pr.Rho, pr.Z, pr.H, pr.S, pr.Cp, pr.Cv, pr.W, pr.Kappa, pr.JT} {
+		if math.IsNaN(v) || math.IsInf(v, 0) {
+			return false
+		}
+	}
+	return pr.Cv > 0 && pr.Cp > 0 && pr.DPDRho > 0 && pr.Kappa > 0 && pr.Rho > 0
 }
 
 // LiquidTP returns the liquid-like root at (t, p) when the pressure lies
@@ -126,7 +141,7 @@ func (mx *Mixture) LiquidTP(t, p float64) (Props, bool) {
 	}
 	pr := mx.props(t, delta, r)
 	pr.Branch = LiquidOnly
-	return pr, true
+	return pr, pr.physical()
 }
 
 func fmtG(v float64) string {
