@@ -85,6 +85,8 @@ func compositionOfModel(m gas.Model) (gas.Composition, bool) {
 		return v.Composition(), true
 	case gas.Real:
 		return v.Composition(), true
+	case gas.GERG:
+		return v.Composition(), true
 	case gas.Ideal:
 		return v.Composition(), true
 	}
@@ -97,7 +99,7 @@ func compositionOfModel(m gas.Model) (gas.Composition, bool) {
 // Source: testdata/reference/rules-of-thumb.md §11, derived from the PR
 // deviations in real-gas-checks.csv.
 func cubicAccuracy(m gas.Model, comp gas.Composition, ok bool, s station) (Warning, bool) {
-	if !ok || m.Name() == "ideal" {
+	if !ok || m.Name() == "ideal" || m.Name() == gas.GERGName {
 		return Warning{}, false
 	}
 	var tc, pc float64
