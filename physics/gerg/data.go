@@ -32,8 +32,9 @@ type component struct {
 
 // pureTerm is n δ^d τ^t exp(−δ^c) (c = 0: polynomial term).
 type pureTerm struct {
-	n, t float64
-	d, c int
+	n, t   float64
+	d, c   int
+	gi, ti int32 // global group and exponent index (tables.groups, tables.tvals)
 }
 
 // depTerm is n δ^d τ^t exp(−η(δ−ε)² − β(δ−γ)) (all four 0: polynomial).
@@ -41,6 +42,7 @@ type depTerm struct {
 	n, t                  float64
 	d                     int
 	eta, eps, beta, gamma float64
+	gi, ti                int32 // global group and exponent index
 }
 
 // binary holds the reducing parameters and the departure weight of a pair
@@ -54,13 +56,20 @@ type binary struct {
 type tables struct {
 	comps [NumComponents]component
 	pairs [NumComponents][NumComponents]binary // [i][j] for i < j
-	dep   map[int][]depTerm
+	dep   [maxModel + 1][]depTerm              // by departure model number
+	// every distinct δ function (group) and τ exponent of all the terms,
+	// so that a mixture merges its terms by index (Mixture.compile)
+	groups []group
+	tvals  []float64
 }
+
+// maxModel is the highest departure model number of the tables.
+const maxModel = 10
 
 // loadTables parses the embedded tables once. The value is never changed
 // after it is built (an immutable value, not mutable package state).
 var loadTables = sync.OnceValues(func() (*tables, error) {
-	tb := &tables{dep: map[int][]depTerm{}}
+	tb := &tables{}
 	rows, err := readCSV("data/components.csv", 8)
 	if err != nil {
 		return nil, err
@@ -106,10 +115,52 @@ var loadTables = sync.OnceValues(func() (*tables, error) {
 	}
 	for _, r := range rows {
 		m := int(r.f[0])
+		if m < 1 || m > maxModel {
+			return nil, fmt.Errorf("gerg: departure.csv model %d", m)
+		}
 		tb.dep[m] = append(tb.dep[m], depTerm{n: r.f[2], d: int(r.f[3]), t: r.f[4], eta: r.f[5], eps: r.f[6], beta: r.f[7], gamma: r.f[8]})
 	}
+	tb.index()
 	return tb, nil
 })
+
+// index gives every term the global index of its δ function (group) and
+// of its τ exponent.
+func (tb *tables) index() {
+	gIndex := map[group]int32{}
+	tIndex := map[float64]int32{}
+	idx := func(g group, t float64) (int32, int32) {
+		gi, ok := gIndex[g]
+		if !ok {
+			gi = int32(len(tb.groups))
+			gIndex[g] = gi
+			tb.groups = append(tb.groups, g)
+		}
+		ti, ok := tIndex[t]
+		if !ok {
+			ti = int32(len(tb.tvals))
+			tIndex[t] = ti
+			tb.tvals = append(tb.tvals, t)
+		}
+		return gi, ti
+	}
+	for i := range tb.comps {
+		for k := range tb.comps[i].res {
+			rt := &tb.comps[i].res[k]
+			rt.gi, rt.ti = idx(group{kind: 0, d: rt.d, c: rt.c}, rt.t)
+		}
+	}
+	for m := range tb.dep {
+		for k := range tb.dep[m] {
+			dt := &tb.dep[m][k]
+			g := group{kind: 0, d: dt.d}
+			if dt.eta != 0 || dt.beta != 0 {
+				g = group{kind: 1, d: dt.d, eta: dt.eta, eps: dt.eps, beta: dt.beta, gamma: dt.gamma}
+			}
+			dt.gi, dt.ti = idx(g, dt.t)
+		}
+	}
+}
 
 // row is one CSV row: the raw strings and their numeric values (NaN-free;
 // non-numeric cells are 0 in f).

@@ -3,7 +3,6 @@ package gerg
 import (
 	"fmt"
 	"math"
-	"sort"
 
 	"stagewright/physics"
 )
@@ -223,33 +222,13 @@ func (mx *Mixture) reducing(tb *tables) {
 // with w = x_i n for pure-fluid terms and x_i x_j F_ij n for departure
 // terms (the terms of every pair sharing a departure model add up).
 func (mx *Mixture) compile(tb *tables) {
-	gIndex := map[group]int32{}
-	tIndex := map[float64]int32{}
-	type key struct {
-		g, ti int32
-	}
-	acc := map[key]float64{}
-	var order []key
-	add := func(g group, t, w float64) {
-		gi, ok := gIndex[g]
-		if !ok {
-			gi = int32(len(mx.groups))
-			gIndex[g] = gi
-			mx.groups = append(mx.groups, g)
-			mx.dMax = max(mx.dMax, g.d)
-			mx.cMax = max(mx.cMax, g.c)
-		}
-		ti, ok := tIndex[t]
-		if !ok {
-			ti = int32(len(mx.tvals))
-			tIndex[t] = ti
-			mx.tvals = append(mx.tvals, t)
-		}
-		k := key{gi, ti}
-		if _, ok := acc[k]; !ok {
-			order = append(order, k)
-		}
+	nG, nT := len(tb.groups), len(tb.tvals)
+	acc := make([]float64, nG*nT)
+	touched := make([]bool, nG*nT)
+	add := func(gi, ti int32, w float64) {
+		k := int(gi)*nT + int(ti)
 		acc[k] += w
+		touched[k] = true
 	}
 	x := &mx.x
 	for i := range NumComponents {
@@ -257,10 +236,11 @@ func (mx *Mixture) compile(tb *tables) {
 			continue
 		}
 		for _, rt := range tb.comps[i].res {
-			add(group{kind: 0, d: rt.d, c: rt.c}, rt.t, x[i]*rt.n)
+			add(rt.gi, rt.ti, x[i]*rt.n)
 		}
 	}
-	weights := map[int]float64{}
+	var weights [maxModel + 1]float64
+	var used [maxModel + 1]bool
 	for i := range NumComponents {
 		for j := i + 1; j < NumComponents; j++ {
 			p := &tb.pairs[i][j]
@@ -268,25 +248,42 @@ func (mx *Mixture) compile(tb *tables) {
 				continue
 			}
 			weights[p.model] += x[i] * x[j] * p.f
+			used[p.model] = true
 		}
 	}
-	models := make([]int, 0, len(weights))
 	for m := range weights {
-		models = append(models, m)
-	}
-	sort.Ints(models) // deterministic term order, hence deterministic rounding
-	for _, m := range models {
-		w := weights[m]
+		if !used[m] {
+			continue
+		}
 		for _, dt := range tb.dep[m] {
-			g := group{kind: 0, d: dt.d}
-			if dt.eta != 0 || dt.beta != 0 {
-				g = group{kind: 1, d: dt.d, eta: dt.eta, eps: dt.eps, beta: dt.beta, gamma: dt.gamma}
-			}
-			add(g, dt.t, w*dt.n)
+			add(dt.gi, dt.ti, weights[m]*dt.n)
 		}
 	}
-	for _, k := range order {
-		mx.terms = append(mx.terms, term{g: k.g, ti: k.ti, w: acc[k]})
+	// compact: the groups and exponents this mixture uses, in table order
+	localT := make([]int32, nT)
+	for i := range localT {
+		localT[i] = -1
+	}
+	for gi := range nG {
+		lg := int32(-1)
+		for ti := range nT {
+			k := gi*nT + ti
+			if !touched[k] {
+				continue
+			}
+			if lg < 0 {
+				lg = int32(len(mx.groups))
+				g := tb.groups[gi]
+				mx.groups = append(mx.groups, g)
+				mx.dMax = max(mx.dMax, g.d)
+				mx.cMax = max(mx.cMax, g.c)
+			}
+			if localT[ti] < 0 {
+				localT[ti] = int32(len(mx.tvals))
+				mx.tvals = append(mx.tvals, tb.tvals[ti])
+			}
+			mx.terms = append(mx.terms, term{g: lg, ti: localT[ti], w: acc[k]})
+		}
 	}
 	for _, g := range mx.groups {
 		mx.slope0 = append(mx.slope0, g.slope0())
