@@ -128,3 +128,20 @@ func TestModelDifferences(t *testing.T) {
 	}
 	t.Log("\n" + b.String())
 }
+
+// TestHeavyAlkanesAreFlammable: the cautions name n-heptane to n-decane as
+// flammable (every alkane is; common knowledge of the trade) for every
+// model that takes them.
+func TestHeavyAlkanesAreFlammable(t *testing.T) {
+	for _, model := range []string{"gerg-2008", "peng-robinson"} {
+		d := fuelGasDuty(model)
+		// lean enough to stay dry at suction
+		d.Gas.Composition = map[string]float64{"CH4": 0.996, "n-C7H16": 0.001, "n-C8H18": 0.001, "nonane": 0.001, "decane": 0.001}
+		d.SuctionTemperature = 380
+		r := size(t, d)
+		all := strings.Join(r.Cautions, " ")
+		for _, f := range []string{"n-C7H16", "n-C8H18", "n-C9H20", "n-C10H22"} {
+			assert.Contains(t, all, f, model)
+		}
+	}
+}
