@@ -105,6 +105,8 @@ func FuzzGasProperties(f *testing.F) {
 	for _, s := range []string{
 		`{"gas":{"model":"peng-robinson","composition":{"CH4":0.9,"C2H6":0.1}},"temperature":"-160 degC","pressure":"1 bara"}`,
 		`{"gas":{"model":"srk","composition":{"CO2":1}},"temperature":304.1,"pressure":7.38e6}`,
+		`{"gas":{"model":"gerg-2008","composition":{"CO2":1}},"temperature":304.1,"pressure":7.38e6}`,
+		`{"gas":{"model":"gerg-2008","composition":{"CH4":0.8,"H2":0.2,"nC10":0.001}},"temperature":"-100 degC","pressure":"69 MPa"}`,
 		`{"gas":{"model":"ideal","composition":{"H2O":1}},"temperature":300,"pressure":"0 barg","ambient":"1 bara"}`,
 		`{"gas":{"model":"ideal-constant","cp":1006,"gamma":1.4},"temperature":1e-300,"pressure":1e300}`,
 		`{}`, `null`, ``,

@@ -29,7 +29,11 @@ func noRootError(p float64, why string) error {
 // that shrinks without reaching the target means the vapour branch ends
 // below it: then (and for liquid true) the liquid-like root is sought from
 // above, where p(δ) is steep and convex so that Newton steps stay above the
-// root. Failure is an error, never a root on the wrong branch.
+// root. Below the critical region a dense "vapour" root is accepted only if
+// p rises monotonically up to it (onVapourBranch): inside the two-phase
+// region multiparameter equations have loops with (∂p/∂δ) > 0 far from the
+// vapour branch (e.g. CO2 at 220 K and 20 MPa). Failure is an error, never a
+// root on the wrong branch.
 // Source: the strategy of the pack README ("start from the ideal gas, guard
 // against the unstable region where dp/drho <= 0, and report failure"),
 // with safeguarded Newton iteration (Press et al., Numerical Recipes, 3rd
@@ -55,6 +59,10 @@ func (mx *Mixture) density(t, p float64, w *tauWork, liquid bool) (float64, Bran
 		if stable {
 			step := (p - pd) / dpd
 			if math.Abs(step) <= 1e-13*delta && math.Abs(pd-p) <= 1e-7*p {
+				if !mx.onVapourBranch(delta, t, eval) {
+					a = 0 // a root of an unphysical loop: there is no vapour root
+					break
+				}
 				if !liquid {
 					return delta, Vapour, r, nil
 				}
@@ -136,4 +144,24 @@ func (mx *Mixture) virialStart(dIG float64, w *tauWork) float64 {
 		return dIG
 	}
 	return 2 * dIG / (1 + math.Sqrt(disc))
+}
+
+// onVapourBranch says whether the root δ at temperature t is reached from
+// δ = 0 along a rising p(δ): checked at 15 evenly spaced densities below it
+// where the root is dense and the temperature below about 1.25 times the
+// reducing temperature (elsewhere p(δ) has no loop before a gas root).
+func (mx *Mixture) onVapourBranch(delta, t float64, eval func(float64) (float64, float64, Residual)) bool {
+	if !(delta > 0.2 && t < 1.25*mx.tr) {
+		return true
+	}
+	const n = 16
+	prev := 0.0
+	for k := 1; k < n; k++ {
+		pd, dpd, _ := eval(delta * float64(k) / n)
+		if !(dpd > 0) || !(pd > prev) {
+			return false
+		}
+		prev = pd
+	}
+	return true
 }

@@ -243,3 +243,19 @@ func TestWorkArraysHoldEveryComponent(t *testing.T) {
 	_, err := m.StateTP(300, 1e6)
 	require.NoError(t, err)
 }
+
+// TestNoLoopRoots: inside the two-phase region the equation's p(ρ) has
+// loops with (∂p/∂ρ)_T > 0 away from both branches. CO2 at 220 K (above its
+// triple point, 216.59 K, and far below Tc; vapour pressure about 0.6 MPa,
+// Span & Wagner 1996, from memory) at 8 to 60 MPa is a compressed liquid of
+// about 1180-1250 kg/m³ (from memory): the root must be that liquid, never
+// a loop root near 470 kg/m³.
+func TestNoLoopRoots(t *testing.T) {
+	m := mixtureOf(t, "CO2:1")
+	for _, p := range []float64{8e6, 20e6, 26e6, 40e6, 60e6} {
+		st, err := m.StateTP(220, p)
+		require.NoError(t, err)
+		assert.Equal(t, gerg.LiquidOnly, st.Branch, "%g", p)
+		assert.InDelta(t, 1215, st.Rho*m.MolarMass(), 60, "%g", p)
+	}
+}
