@@ -31,8 +31,11 @@ func GERGCovers(c Component) bool {
 // ideal mixing entropy. Range of validity 60-700 K, up to 70 MPa: a state
 // outside it is a DomainError.
 //
-// Phase: the density root is the vapour-like one where it exists; a state
-// where only a liquid-like root reaches the pressure is PhaseLiquid. Below
+// Phase: the density root is the vapour-like one where it exists. Above
+// the Kay's-rule pseudo-critical temperature and pressure (Σ x Tc, Σ x Pc of
+// the catalogue) a state is PhaseSupercritical, as for Real; otherwise a
+// state where only a liquid-like root reaches the pressure is PhaseLiquid.
+// Below
 // the highest critical temperature of its components, State also tests
 // stability: a pure fluid whose liquid-like root has the lower Gibbs energy
 // is PhaseLiquid (GERG-2008's own saturation condition); a mixture is
@@ -132,12 +135,12 @@ func (m GERG) state(t physics.Kelvin, p physics.Pascal, stability bool) (State, 
 		return State{}, &physics.DomainError{Name: "pressure", Value: pp, Want: "a state with finite properties",
 			Reason: "GERG-2008 gives no physical heat capacity at this temperature and pressure"}
 	}
-	switch {
+	switch { // the order of Real.State: above the pseudo-critical point the root's kind does not matter
+	case tt > m.tcK && pp > m.pcK:
+		st.Phase = PhaseSupercritical
 	case pr.Branch == gerg.LiquidOnly:
 		st.Phase = PhaseLiquid
 		st.Validity |= TwoPhaseRisk
-	case tt > m.tcK && pp > m.pcK:
-		st.Phase = PhaseSupercritical
 	}
 	if !stability || st.Phase == PhaseLiquid || !(tt < m.tcMax) {
 		return st, nil
