@@ -143,3 +143,35 @@ func TestGERGStageSize(t *testing.T) {
 	assert.InEpsilon(t, a.num("head.polytropic"), b.num("head.polytropic"), 0.015)
 	assert.InDelta(t, a.num("discharge.temperature"), b.num("discharge.temperature"), 2)
 }
+
+// TestGERGBatch: the batch takes gerg-2008 like the single endpoint: a good
+// duty answers what /v1/stage/size answers, an uncovered component is a
+// 400 item pointing at it.
+func TestGERGBatch(t *testing.T) {
+	h := newRouter(t)
+	good := duty(t, demoDuty, set("gas", map[string]any{"model": "gerg-2008", "composition": map[string]any{"CH4": 0.9, "C2H6": 0.06, "N2": 0.04}}),
+		set("suction.pressure", "20 bara"), set("suction.temperature", "25 degC"))
+	bad := duty(t, good, set("gas.composition", map[string]any{"CH4": 0.9, "NH3": 0.1}))
+	rec := do(h, http.MethodPost, "/v1/stage/size/batch", `{"duties": [`+good+`,`+bad+`]}`)
+	require.Equal(t, http.StatusOK, rec.Code, rec.Body.String())
+	var out struct {
+		Results []struct {
+			Status  int             `json:"status"`
+			Result  json.RawMessage `json:"result"`
+			Problem *struct {
+				Errors []struct {
+					Pointer string `json:"pointer"`
+				} `json:"errors"`
+			} `json:"problem"`
+		} `json:"results"`
+	}
+	require.NoError(t, json.Unmarshal(rec.Body.Bytes(), &out))
+	require.Len(t, out.Results, 2)
+	require.Equal(t, http.StatusOK, out.Results[0].Status, string(out.Results[0].Result))
+	single := postStage(h, good)
+	require.Equal(t, http.StatusOK, single.Code, single.Body.String())
+	assert.JSONEq(t, single.Body.String(), string(out.Results[0].Result))
+	assert.Equal(t, http.StatusBadRequest, out.Results[1].Status)
+	require.NotNil(t, out.Results[1].Problem)
+	assert.Equal(t, "/gas/composition/NH3", out.Results[1].Problem.Errors[0].Pointer)
+}
