@@ -77,6 +77,17 @@ func (mx *Mixture) residual(delta float64, w *tauWork) Residual {
 		dc[c] = dp[c]
 		ec[c] = math.Exp(-dp[c])
 	}
+	u := delta - 0.5
+	var pa [maxA + 1]float64 // exp(−u²/8)^k
+	var pb [maxB + 1]float64 // exp(−u/4)^k
+	pa[0], pb[0] = 1, 1
+	ea, eb := math.Exp(-u*u/8), math.Exp(-u/4)
+	for k := 1; k <= maxA; k++ {
+		pa[k] = pa[k-1] * ea
+	}
+	for k := 1; k <= maxB; k++ {
+		pb[k] = pb[k-1] * eb
+	}
 	var r Residual
 	d2 := delta * delta
 	for i := range mx.groups {
@@ -86,7 +97,11 @@ func (mx *Mixture) residual(delta float64, w *tauWork) Residual {
 		switch {
 		case gr.kind == 1:
 			dm := delta - gr.eps
-			f = dp[gr.d] * math.Exp(-gr.eta*dm*dm-gr.beta*(delta-gr.gamma))
+			if tab := mx.expTab[i]; tab[0] >= 0 {
+				f = dp[gr.d] * pa[tab[0]] * pb[tab[1]]
+			} else {
+				f = dp[gr.d] * math.Exp(-gr.eta*dm*dm-gr.beta*(delta-gr.gamma))
+			}
 			g = d - 2*gr.eta*delta*dm - gr.beta*delta
 			g2 = g*g - d - 2*gr.eta*d2
 		case gr.c == 0:

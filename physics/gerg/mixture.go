@@ -41,6 +41,8 @@ const (
 	maxD      = 10
 	maxC      = 6
 	maxTInt   = 31 // largest integer part of a tabulated exponent t
+	maxA      = 8  // largest 8η of a tabulated departure exponential
+	maxB      = 16 // largest 4β of a tabulated departure exponential
 )
 
 // group is a set of terms sharing the δ function: kind 0 is δ^d exp(−δ^c)
@@ -104,6 +106,12 @@ type Mixture struct {
 	terms  []term
 	tvals  []float64
 	tpow   []tPow // how to form τ^t for each of tvals
+	// departure exponentials exp(−η(δ−ε)² − β(δ−γ)): with ε = γ = 1/2 and
+	// 8η, 4β integers (every GERG-2008 term) they are A^(8η) B^(4β) with
+	// A = exp(−u²/8), B = exp(−u/4), u = δ − 1/2: two exp calls per δ
+	// instead of one per group. expTab[g] holds (8η, 4β), or −1 where a
+	// group is evaluated directly.
+	expTab [][2]int8
 	tMaxI  int    // largest integer part of a tabulated τ^t
 	ideal  []idealComp
 	smix   float64 // −R Σ x ln x
@@ -287,6 +295,14 @@ func (mx *Mixture) compile(tb *tables) {
 	}
 	for _, g := range mx.groups {
 		mx.slope0 = append(mx.slope0, g.slope0())
+		tab := [2]int8{-1, -1}
+		if g.kind == 1 && g.eps == 0.5 && g.gamma == 0.5 {
+			a, b := g.eta*8, g.beta*4
+			if a == math.Trunc(a) && b == math.Trunc(b) && a >= 0 && a <= maxA && b >= 0 && b <= maxB {
+				tab = [2]int8{int8(a), int8(b)}
+			}
+		}
+		mx.expTab = append(mx.expTab, tab)
 	}
 	for _, t := range mx.tvals {
 		k := math.Round(t * tDiv)
