@@ -112,7 +112,7 @@ type Mixture struct {
 	// instead of one per group. expTab[g] holds (8η, 4β), or −1 where a
 	// group is evaluated directly.
 	expTab [][2]int8
-	tMaxI  int    // largest integer part of a tabulated τ^t
+	tMaxI  int // largest integer part of a tabulated τ^t
 	ideal  []idealComp
 	smix   float64 // −R Σ x ln x
 	dMax   int
