@@ -21,7 +21,8 @@ func FuzzPostStage(f *testing.F) {
 	for _, b := range seedDuties(f) {
 		f.Add(b)
 	}
-	for _, s := range []string{demoDuty, ``, `null`, `{}`, `[]`, `"x"`, `{"speed": "1e400 rpm"}`, `{"gas": {"composition": {"CH4": 1e308}}}`} {
+	for _, s := range []string{demoDuty, ``, `null`, `{}`, `[]`, `"x"`, `{"speed": "1e400 rpm"}`, `{"gas": {"composition": {"CH4": 1e308}}}`,
+		duty(f, demoDuty, set("gas", map[string]any{"model": "gerg-2008", "composition": map[string]any{"CO2": 0.9, "N2": 0.1}}))} {
 		f.Add([]byte(s))
 	}
 	h := plainRouter(f)
