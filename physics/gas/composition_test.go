@@ -50,9 +50,9 @@ func TestCatalogueAgainstCriticalConstants(t *testing.T) {
 		"air": {28.96546, 132.5306, 3786.0, 0.0816749632704},
 		// Not in critical-constants.csv: M and Tc from the GERG-2008 table
 		// (testdata/reference/gerg2008, components.csv, Kunz & Wagner 2012);
-		// Pc and omega from the reference-EOS fluid files of CoolProp
-		// (dev/fluids/n-Heptane.json ... n-Decane.json: Span & Wagner 2003,
-		// Lemmon & Span 2006).
+		// Pc and omega from the stored reference-EOS fluid files of an
+		// open-source property library, as critical-constants.csv (Span &
+		// Wagner 2003, Lemmon & Span 2006).
 		"n-C7H16": {100.20194, 540.13, 2736.0, 0.349}, "n-C8H18": {114.22852, 569.32, 2497.0, 0.395},
 		"n-C9H20": {128.2551, 594.55, 2281.0, 0.4433}, "n-C10H22": {142.28168, 617.7, 2103.0, 0.4884},
 	}
