@@ -21,7 +21,8 @@ func FuzzPostStage(f *testing.F) {
 	for _, b := range seedDuties(f) {
 		f.Add(b)
 	}
-	for _, s := range []string{demoDuty, ``, `null`, `{}`, `[]`, `"x"`, `{"speed": "1e400 rpm"}`, `{"gas": {"composition": {"CH4": 1e308}}}`} {
+	for _, s := range []string{demoDuty, ``, `null`, `{}`, `[]`, `"x"`, `{"speed": "1e400 rpm"}`, `{"gas": {"composition": {"CH4": 1e308}}}`,
+		duty(f, demoDuty, set("gas", map[string]any{"model": "gerg-2008", "composition": map[string]any{"CO2": 0.9, "N2": 0.1}}))} {
 		f.Add([]byte(s))
 	}
 	h := plainRouter(f)
@@ -105,6 +106,8 @@ func FuzzGasProperties(f *testing.F) {
 	for _, s := range []string{
 		`{"gas":{"model":"peng-robinson","composition":{"CH4":0.9,"C2H6":0.1}},"temperature":"-160 degC","pressure":"1 bara"}`,
 		`{"gas":{"model":"srk","composition":{"CO2":1}},"temperature":304.1,"pressure":7.38e6}`,
+		`{"gas":{"model":"gerg-2008","composition":{"CO2":1}},"temperature":304.1,"pressure":7.38e6}`,
+		`{"gas":{"model":"gerg-2008","composition":{"CH4":0.8,"H2":0.2,"nC10":0.001}},"temperature":"-100 degC","pressure":"69 MPa"}`,
 		`{"gas":{"model":"ideal","composition":{"H2O":1}},"temperature":300,"pressure":"0 barg","ambient":"1 bara"}`,
 		`{"gas":{"model":"ideal-constant","cp":1006,"gamma":1.4},"temperature":1e-300,"pressure":1e300}`,
 		`{}`, `null`, ``,

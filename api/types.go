@@ -75,17 +75,19 @@ type LevelOverrideSpec struct {
 // other models need a composition.
 type GasSpec struct {
 	// Model is the property model.
-	Model string `json:"model" binding:"required,oneof=ideal-constant ideal peng-robinson srk" enums:"ideal-constant,ideal,peng-robinson,srk" example:"ideal-constant"`
+	Model string `json:"model" binding:"required,oneof=ideal-constant ideal peng-robinson srk gerg-2008" enums:"ideal-constant,ideal,peng-robinson,srk,gerg-2008" example:"ideal-constant"`
 	// Cp is the isobaric specific heat capacity for "ideal-constant", J/(kg K).
 	Cp *float64 `json:"cp,omitempty" format:"double" minimum:"0" example:"1005"`
 	// Gamma is the ratio of specific heats cp/cv for "ideal-constant".
 	Gamma *float64 `json:"gamma,omitempty" format:"double" minimum:"1" maximum:"1.6667" example:"1.4"`
 	// Composition maps component (formula or name, e.g. "CH4", "methane")
-	// to its fraction, for the "ideal", "peng-robinson" and "srk" models.
+	// to its fraction, for the "ideal", "peng-robinson", "srk" and "gerg-2008"
+	// models ("gerg-2008" takes only its 21 components).
 	Composition map[string]float64 `json:"composition,omitempty" swaggertype:"object,number" example:"CH4:0.9,C2H6:0.1"`
 	// CompositionBasis says whether the fractions are mole (default) or mass fractions.
 	CompositionBasis string `json:"composition_basis,omitempty" binding:"omitempty,oneof=mole mass" enums:"mole,mass" example:"mole"`
-	// BinaryInteraction overrides the cubic-EOS kij of component pairs.
+	// BinaryInteraction overrides the cubic-EOS kij of component pairs
+	// (peng-robinson and srk only).
 	BinaryInteraction []BinaryInteractionSpec `json:"binary_interaction,omitempty" binding:"omitempty,dive"`
 	// RelativeHumidity of air at suction, 0..1 (adds water vapour).
 	RelativeHumidity *float64 `json:"relative_humidity,omitempty" format:"double" minimum:"0" maximum:"1" example:"0.6"`

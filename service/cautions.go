@@ -58,7 +58,7 @@ func gasHazards(m gas.Model) []string {
 		c := comp.Component(i)
 		present[c.Formula] += x[i]
 		switch c.Formula {
-		case "H2", "CO", "CH4", "C2H6", "C3H8", "i-C4H10", "n-C4H10", "i-C5H12", "n-C5H12", "n-C6H14", "C2H4", "C3H6", "H2S", "NH3":
+		case "H2", "CO", "CH4", "C2H6", "C3H8", "i-C4H10", "n-C4H10", "i-C5H12", "n-C5H12", "n-C6H14", "n-C7H16", "n-C8H18", "n-C9H20", "n-C10H22", "C2H4", "C3H6", "H2S", "NH3":
 			fuels = append(fuels, c.Formula)
 		}
 	}

@@ -11,8 +11,9 @@ import (
 	"stagewright/physics/water"
 )
 
-// mixtureModel builds an "ideal", "peng-robinson" or "srk" model of g's
-// composition, adding water vapour for a relative humidity at suction.
+// mixtureModel builds an "ideal", "peng-robinson", "srk" or "gerg-2008"
+// model of g's composition, adding water vapour for a relative humidity at
+// suction.
 func (s *Service) mixtureModel(g GasInput, t, p float64, notes *gasNotes) (gas.Model, gasNotes, error) {
 	fr, err := fractionsOf(g)
 	if err != nil {
@@ -64,39 +65,55 @@ func (s *Service) mixtureModel(g GasInput, t, p float64, notes *gasNotes) (gas.M
 	case "srk":
 		notes.methods = append(notes.methods, Method{Subject: "gas properties", Name: "Soave-Redlich-Kwong cubic equation of state, van der Waals one-fluid mixing with kij",
 			Source: "Soave, Chem. Eng. Sci. 27:1197 (1972); ideal-gas part as model ideal; phase by Michelsen, Fluid Phase Equilib. 9:1 (1982)"})
+	case gas.GERGName:
+		notes.methods = append(notes.methods, Method{Subject: "gas properties", Name: "GERG-2008 wide-range equation of state (reduced Helmholtz energy, 21 components), range 60-700 K, up to 70 MPa",
+			Source: "Kunz & Wagner, J. Chem. Eng. Data 57:3032 (2012); ISO 20765-2; AGA Report No. 8 Part 2 (2017); checked against NIST's AGA 8 reference implementation; ideal-gas part Jaeschke & Schley (1995); phase: pure fluids by equal Gibbs energy of the GERG-2008 roots, mixtures screened by Michelsen's test (Fluid Phase Equilib. 9:1, 1982) on Peng-Robinson, which also gives the dew point"})
 	}
-	notes.methods = append(notes.methods, Method{Subject: "ideal-gas heat capacity", Name: "cp(T) per component by published range, continuous at every hand-over between ranges",
-		Source: "NIST Chemistry WebBook Shomate fits (Chase 1998; testdata/reference/shomate.csv); Poling, Prausnitz & O'Connell (2001) App. A cp/R polynomials (from memory); " + gas.HandOverMethod})
-	if r, ok := m.(gas.Real); ok {
-		return pathModel{Real: r}, *notes, nil
+	if g.Model != gas.GERGName {
+		notes.methods = append(notes.methods, Method{Subject: "ideal-gas heat capacity", Name: "cp(T) per component by published range, continuous at every hand-over between ranges",
+			Source: "NIST Chemistry WebBook Shomate fits (Chase 1998; testdata/reference/shomate.csv); Poling, Prausnitz & O'Connell (2001) App. A cp/R polynomials (from memory); " + gas.HandOverMethod})
+	}
+	if r, ok := m.(screened); ok {
+		return pathModel{screened: r}, *notes, nil
 	}
 	return m, *notes, nil
+}
+
+// screened is a real-gas model with a phase test that its Gas* methods
+// skip (gas.Real, gas.GERG).
+type screened interface {
+	gas.Model
+	Composition() gas.Composition
+	DewTemperature(p physics.Pascal) (physics.Kelvin, error)
+	GasState(t physics.Kelvin, p physics.Pascal) (gas.State, error)
+	GasStateFromPH(p physics.Pascal, h physics.JoulePerKg) (gas.State, error)
+	GasStateFromPS(p physics.Pascal, s physics.JoulePerKgK) (gas.State, error)
 }
 
 // pathModel is a real-gas model whose State skips the phase-stability test:
 // the compression path evaluates hundreds of states along a line whose end
 // states the service checks with the full test (checkPhases).
-type pathModel struct{ gas.Real }
+type pathModel struct{ screened }
 
 // State returns the state without the stability test.
 func (m pathModel) State(t physics.Kelvin, p physics.Pascal) (gas.State, error) {
-	return m.Real.GasState(t, p)
+	return m.screened.GasState(t, p)
 }
 
 // StateFromPH solves the (P,h) flash without the stability test.
 func (m pathModel) StateFromPH(p physics.Pascal, h physics.JoulePerKg) (gas.State, error) {
-	return m.Real.GasStateFromPH(p, h)
+	return m.screened.GasStateFromPH(p, h)
 }
 
 // StateFromPS solves the (P,s) flash without the stability test.
 func (m pathModel) StateFromPS(p physics.Pascal, s physics.JoulePerKgK) (gas.State, error) {
-	return m.Real.GasStateFromPS(p, s)
+	return m.screened.GasStateFromPS(p, s)
 }
 
 // fullState returns the state with the phase test.
 func fullState(m gas.Model, t physics.Kelvin, p physics.Pascal) (gas.State, error) {
 	if pm, ok := m.(pathModel); ok {
-		return pm.Real.State(t, p)
+		return pm.screened.State(t, p)
 	}
 	return m.State(t, p)
 }

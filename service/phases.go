@@ -85,6 +85,8 @@ func compositionOfModel(m gas.Model) (gas.Composition, bool) {
 		return v.Composition(), true
 	case gas.Real:
 		return v.Composition(), true
+	case gas.GERG:
+		return v.Composition(), true
 	case gas.Ideal:
 		return v.Composition(), true
 	}

@@ -21,13 +21,11 @@ type DefaultInteraction struct {
 // interactionsUsed returns the kij of every pair of a cubic model's
 // components with its source; nil for the other models.
 func interactionsUsed(m gas.Model) []BinaryInteraction {
-	var r gas.Real
-	switch v := m.(type) {
-	case pathModel:
-		r = v.Real
-	case gas.Real:
-		r = v
-	default:
+	if pm, ok := m.(pathModel); ok {
+		m = pm.screened
+	}
+	r, ok := m.(gas.Real)
+	if !ok {
 		return nil
 	}
 	used := r.BinaryParameters()

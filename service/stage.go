@@ -19,7 +19,7 @@ import (
 
 // ModelVersion names the version of the physics behind every answer; it
 // changes whenever a result for the same input could change.
-const ModelVersion = "stagewright-physics 0.4.0"
+const ModelVersion = "stagewright-physics 0.5.0"
 
 // Defaults applied when a duty leaves a choice open.
 const (

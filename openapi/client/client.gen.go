@@ -93,6 +93,7 @@ func (e ApiGasSpecCompositionBasis) Valid() bool {
 
 // Defines values for ApiGasSpecModel.
 const (
+	Gerg2008      ApiGasSpecModel = "gerg-2008"
 	Ideal         ApiGasSpecModel = "ideal"
 	IdealConstant ApiGasSpecModel = "ideal-constant"
 	PengRobinson  ApiGasSpecModel = "peng-robinson"
@@ -102,6 +103,8 @@ const (
 // Valid indicates whether the value is a known member of the ApiGasSpecModel enum.
 func (e ApiGasSpecModel) Valid() bool {
 	switch e {
+	case Gerg2008:
+		return true
 	case Ideal:
 		return true
 	case IdealConstant:
@@ -724,11 +727,13 @@ type ApiFlowSpec_StandardVolume struct {
 
 // ApiGasSpec defines model for api.GasSpec.
 type ApiGasSpec struct {
-	// BinaryInteraction BinaryInteraction overrides the cubic-EOS kij of component pairs.
+	// BinaryInteraction BinaryInteraction overrides the cubic-EOS kij of component pairs
+	// (peng-robinson and srk only).
 	BinaryInteraction *[]ApiBinaryInteractionSpec `json:"binary_interaction,omitempty"`
 
 	// Composition Composition maps component (formula or name, e.g. "CH4", "methane")
-	// to its fraction, for the "ideal", "peng-robinson" and "srk" models.
+	// to its fraction, for the "ideal", "peng-robinson", "srk" and "gerg-2008"
+	// models ("gerg-2008" takes only its 21 components).
 	//
 	// Example: {"C2H6":0.1,"CH4":0.9}
 	Composition *map[string]float64 `json:"composition,omitempty"`

@@ -29,7 +29,7 @@ func ExampleComponents() {
 		}
 	}
 	fmt.Println(len(gas.Components()), n)
-	// Output: 21 2
+	// Output: 25 2
 }
 
 func ExampleIdealGasProperties() {

@@ -24,7 +24,7 @@ func FuzzModels(f *testing.F) {
 	f.Fuzz(func(t *testing.T, temp, p, h, s float64) {
 		c, err := gas.NewComposition(naturalGas(), gas.BasisMole)
 		require.NoError(t, err)
-		for _, name := range []string{"ideal", "peng-robinson", "srk"} {
+		for _, name := range []string{"ideal", "peng-robinson", "srk", "gerg-2008"} {
 			m, err := gas.NewModel(name, c, nil)
 			require.NoError(t, err)
 			if st, err := m.State(physics.Kelvin(temp), physics.Pascal(p)); err == nil {

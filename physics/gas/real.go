@@ -235,7 +235,8 @@ func interactions(model string, c Composition, kij []BinaryParameter) ([][]float
 
 // NewModel returns the gas model the service selects by name: "ideal"
 // (NewIdeal), "peng-robinson" or "srk" (NewReal, with kij overriding the
-// default interaction parameters; kij must be empty for "ideal"). The
+// default interaction parameters), "gerg-2008" (NewGERG); kij must be empty
+// for "ideal" and "gerg-2008". The
 // "ideal-constant" model is built with NewConstant from cp and gamma
 // instead. An unknown name returns a DomainError naming it.
 func NewModel(name string, comp Composition, kij []BinaryParameter) (Model, error) {
@@ -246,16 +247,22 @@ func NewModel(name string, comp Composition, kij []BinaryParameter) (Model, erro
 				Reason: "binary interaction parameters apply only to the peng-robinson and srk models"}
 		}
 		return NewIdeal(comp)
+	case GERGName, "gerg2008", "gerg":
+		if len(kij) > 0 {
+			return nil, &physics.DomainError{Name: "kij", Value: float64(len(kij)), Want: "none for gerg-2008",
+				Reason: "binary interaction parameters apply only to the peng-robinson and srk models (GERG-2008 has its own binary functions)"}
+		}
+		return NewGERG(comp)
 	case "peng-robinson", "pr":
 		return NewReal(cubic.PengRobinson, comp, kij)
 	case "srk", "soave-redlich-kwong":
 		return NewReal(cubic.SoaveRedlichKwong, comp, kij)
 	case "ideal-constant":
-		return nil, &physics.DomainError{Name: "model", Want: "ideal, peng-robinson or srk",
+		return nil, &physics.DomainError{Name: "model", Want: "ideal, peng-robinson, srk or gerg-2008",
 			Reason: "the ideal-constant model takes cp and gamma, not a composition (use NewConstant)"}
 	}
-	return nil, &physics.DomainError{Name: "model", Want: "ideal, peng-robinson or srk",
-		Reason: "unknown gas model \"" + name + "\"; choose ideal, peng-robinson or srk (or ideal-constant with cp and gamma)"}
+	return nil, &physics.DomainError{Name: "model", Want: "ideal, peng-robinson, srk or gerg-2008",
+		Reason: "unknown gas model \"" + name + "\"; choose ideal, peng-robinson, srk or gerg-2008 (or ideal-constant with cp and gamma)"}
 }
 
 // Name returns "peng-robinson" or "srk".
