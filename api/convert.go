@@ -286,7 +286,7 @@ func responseOf(res service.StageResult) (StageResponse, error) {
 			Value: w.Value, Limit: w.Limit, Margin: w.Margin, Unit: w.Unit, Basis: w.Basis})
 	}
 	out.Provenance = provenanceOut(res.Provenance)
-	if err := allFinite(out); err != nil {
+	if err := stageFinite.check(&out); err != nil {
 		return StageResponse{}, err
 	}
 	return out, nil

@@ -194,7 +194,7 @@ func (h gasHandler) properties(c *gin.Context) {
 	for i, n := range res.Components {
 		out.Composition = append(out.Composition, ComponentFraction{Component: n, MoleFraction: res.MoleFractions[i]})
 	}
-	if err := allFinite(out); err != nil {
+	if err := propsFinite.check(&out); err != nil {
 		fail(c, h.log, err)
 		return
 	}

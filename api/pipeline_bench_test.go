@@ -127,7 +127,7 @@ func BenchmarkPipelineAnswer(b *testing.B) {
 func BenchmarkPipelineGuard(b *testing.B) {
 	eachPipelineDuty(b, func(b *testing.B, _ *requestDecoder, pc pipelineCase) {
 		for b.Loop() {
-			if err := allFinite(pc.out); err != nil {
+			if err := stageFinite.check(&pc.out); err != nil {
 				b.Fatal(err)
 			}
 		}
