@@ -94,7 +94,7 @@ feed:
 			out.Failed++
 		}
 	}
-	c.JSON(http.StatusOK, out)
+	h.enc.write(c, h.log, http.StatusOK, &out)
 }
 
 // one sizes duty i of a batch. It runs on a worker goroutine, out of reach

@@ -128,6 +128,7 @@ type MixtureOut struct {
 type gasHandler struct {
 	svc     GasPropertyService
 	decoder *requestDecoder
+	enc     *answerEncoder
 	log     *slog.Logger
 }
 
@@ -198,7 +199,7 @@ func (h gasHandler) properties(c *gin.Context) {
 		fail(c, h.log, err)
 		return
 	}
-	c.JSON(http.StatusOK, out)
+	h.enc.write(c, h.log, http.StatusOK, &out)
 }
 
 // components lists the gas catalogue.

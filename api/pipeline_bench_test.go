@@ -134,10 +134,28 @@ func BenchmarkPipelineGuard(b *testing.B) {
 	})
 }
 
+// BenchmarkPipelineEncode: the answer encoder (sonic, pooled buffer).
 func BenchmarkPipelineEncode(b *testing.B) {
 	eachPipelineDuty(b, func(b *testing.B, _ *requestDecoder, pc pipelineCase) {
+		enc, err := newAnswerEncoder()
+		if err != nil {
+			b.Fatal(err)
+		}
 		for b.Loop() {
-			if _, err := json.Marshal(pc.out); err != nil {
+			buf, err := enc.encode(&pc.out)
+			if err != nil {
+				b.Fatal(err)
+			}
+			enc.put(buf)
+		}
+	})
+}
+
+// BenchmarkPipelineEncodeStd: encoding/json, for comparison.
+func BenchmarkPipelineEncodeStd(b *testing.B) {
+	eachPipelineDuty(b, func(b *testing.B, _ *requestDecoder, pc pipelineCase) {
+		for b.Loop() {
+			if _, err := json.Marshal(&pc.out); err != nil {
 				b.Fatal(err)
 			}
 		}
