@@ -2934,7 +2934,7 @@ type ClientInterface interface {
 
 	// SizeStageBatchWithBody Size many stages in one call
 	//
-	// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own.
+	// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own. The answer is streamed item by item as the duties are sized (memory per request stays bounded). With `Accept: application/x-ndjson` the answer is newline-delimited JSON instead: one BatchItem per line, in request order, without the counts. When the compute deadline passes before the first duty is sized the whole batch answers 504; once the answer has begun, each duty not sized by the deadline gets a 504 compute-timeout item.
 	//
 	// Takes any type of body and a specified content type.
 	//
@@ -2943,7 +2943,7 @@ type ClientInterface interface {
 
 	// SizeStageBatch Size many stages in one call
 	//
-	// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own.
+	// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own. The answer is streamed item by item as the duties are sized (memory per request stays bounded). With `Accept: application/x-ndjson` the answer is newline-delimited JSON instead: one BatchItem per line, in request order, without the counts. When the compute deadline passes before the first duty is sized the whole batch answers 504; once the answer has begun, each duty not sized by the deadline gets a 504 compute-timeout item.
 	//
 	// Takes a body of the `application/json` content type.
 	//
@@ -3100,7 +3100,7 @@ func (c *Client) SizeStage(ctx context.Context, body SizeStageJSONRequestBody, r
 
 // SizeStageBatchWithBody Size many stages in one call
 //
-// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own.
+// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own. The answer is streamed item by item as the duties are sized (memory per request stays bounded). With `Accept: application/x-ndjson` the answer is newline-delimited JSON instead: one BatchItem per line, in request order, without the counts. When the compute deadline passes before the first duty is sized the whole batch answers 504; once the answer has begun, each duty not sized by the deadline gets a 504 compute-timeout item.
 //
 // Takes any type of body and a specified content type.
 //
@@ -3119,7 +3119,7 @@ func (c *Client) SizeStageBatchWithBody(ctx context.Context, contentType string,
 
 // SizeStageBatch Size many stages in one call
 //
-// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own.
+// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own. The answer is streamed item by item as the duties are sized (memory per request stays bounded). With `Accept: application/x-ndjson` the answer is newline-delimited JSON instead: one BatchItem per line, in request order, without the counts. When the compute deadline passes before the first duty is sized the whole batch answers 504; once the answer has begun, each duty not sized by the deadline gets a 504 compute-timeout item.
 //
 // Takes a body of the `application/json` content type.
 //
@@ -3522,7 +3522,7 @@ type ClientWithResponsesInterface interface {
 
 	// SizeStageBatchWithBodyWithResponse Size many stages in one call
 	//
-	// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own.
+	// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own. The answer is streamed item by item as the duties are sized (memory per request stays bounded). With `Accept: application/x-ndjson` the answer is newline-delimited JSON instead: one BatchItem per line, in request order, without the counts. When the compute deadline passes before the first duty is sized the whole batch answers 504; once the answer has begun, each duty not sized by the deadline gets a 504 compute-timeout item.
 	//
 	// Takes any type of body and a specified content type, and returns a wrapper object for the known response body format(s).
 	//
@@ -3531,7 +3531,7 @@ type ClientWithResponsesInterface interface {
 
 	// SizeStageBatchWithResponse Size many stages in one call
 	//
-	// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own.
+	// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own. The answer is streamed item by item as the duties are sized (memory per request stays bounded). With `Accept: application/x-ndjson` the answer is newline-delimited JSON instead: one BatchItem per line, in request order, without the counts. When the compute deadline passes before the first duty is sized the whole batch answers 504; once the answer has begun, each duty not sized by the deadline gets a 504 compute-timeout item.
 	//
 	// Takes a body of the `application/json` content type, and returns a wrapper object for the known response body format(s).
 	//
@@ -4148,7 +4148,7 @@ func (c *ClientWithResponses) SizeStageWithResponse(ctx context.Context, body Si
 
 // SizeStageBatchWithBodyWithResponse Size many stages in one call
 //
-// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own.
+// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own. The answer is streamed item by item as the duties are sized (memory per request stays bounded). With `Accept: application/x-ndjson` the answer is newline-delimited JSON instead: one BatchItem per line, in request order, without the counts. When the compute deadline passes before the first duty is sized the whole batch answers 504; once the answer has begun, each duty not sized by the deadline gets a 504 compute-timeout item.
 //
 // Takes any type of body and a specified content type, and returns a wrapper object for the known response body format(s).
 //
@@ -4163,7 +4163,7 @@ func (c *ClientWithResponses) SizeStageBatchWithBodyWithResponse(ctx context.Con
 
 // SizeStageBatchWithResponse Size many stages in one call
 //
-// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own.
+// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own. The answer is streamed item by item as the duties are sized (memory per request stays bounded). With `Accept: application/x-ndjson` the answer is newline-delimited JSON instead: one BatchItem per line, in request order, without the counts. When the compute deadline passes before the first duty is sized the whole batch answers 504; once the answer has begun, each duty not sized by the deadline gets a 504 compute-timeout item.
 //
 // Takes a body of the `application/json` content type, and returns a wrapper object for the known response body format(s).
 //
