@@ -57,6 +57,12 @@ type BatchItem struct {
 //	@ID			sizeStageBatch
 //	@Router			/v1/stage/size/batch [post]
 func (h stageHandler) sizeBatch(c *gin.Context) {
+	h.batch(c, false)
+}
+
+// batch sizes the duties of a batch request, each item in the compact or
+// the full view.
+func (h stageHandler) batch(c *gin.Context, compact bool) {
 	var req BatchRequest
 	if err := decodeStrict(c.Request, &req, h.decoder); err != nil {
 		fail(c, h.log, err)
@@ -85,7 +91,7 @@ func (h stageHandler) sizeBatch(c *gin.Context) {
 		go func() {
 			defer wg.Done()
 			for i := range work {
-				ring[i%window] <- h.encodedItem(c, i, req.Duties[i])
+				ring[i%window] <- h.encodedItem(c, i, req.Duties[i], compact)
 			}
 		}()
 	}
@@ -176,7 +182,7 @@ func wantsNDJSON(accept string) bool {
 // encodedItem sizes duty i and encodes its item. Once the context is done
 // (compute deadline, client gone) it sizes no further duty: the item is
 // the deadline's problem.
-func (h stageHandler) encodedItem(c *gin.Context, i int, r StageRequest) batchEncoded {
+func (h stageHandler) encodedItem(c *gin.Context, i int, r StageRequest, compact bool) batchEncoded {
 	var item BatchItem
 	var ctxErr error
 	if err := c.Request.Context().Err(); err != nil {
@@ -188,7 +194,18 @@ func (h stageHandler) encodedItem(c *gin.Context, i int, r StageRequest) batchEn
 			ctxErr = c.Request.Context().Err()
 		}
 	}
-	buf, err := h.enc.encode(&item)
+	var buf *[]byte
+	var err error
+	if compact {
+		ci := CompactBatchItem{Index: item.Index, Status: item.Status, Problem: item.Problem}
+		if item.Result != nil {
+			r := compactOf(item.Result)
+			ci.Result = &r
+		}
+		buf, err = h.enc.encode(&ci)
+	} else {
+		buf, err = h.enc.encode(&item)
+	}
 	if err != nil {
 		h.log.Error("batch item failed", "request_id", c.GetString(requestIDKey), "index", i, "err", err)
 		buf = h.enc.get()

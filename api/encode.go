@@ -41,6 +41,7 @@ type answerEncoder struct {
 // the first request.
 func newAnswerEncoder() (*answerEncoder, error) {
 	err := encoder.PretouchMany([]reflect.Type{reflect.TypeFor[StageResponse](), reflect.TypeFor[BatchItem](),
+		reflect.TypeFor[CompactStageResponse](), reflect.TypeFor[CompactBatchItem](),
 		reflect.TypeFor[PropertiesResponse]()})
 	if err != nil {
 		return nil, err

@@ -130,6 +130,8 @@ func NewRouter(svc Services, opts Options) (*gin.Engine, error) {
 	st := stageHandler{svc: svc, decoder: dec, enc: enc, log: log}
 	v1.POST("/stage/size", st.size)
 	v1.POST("/stage/size/batch", st.sizeBatch)
+	v1.POST("/stage/size/compact", st.sizeCompact)
+	v1.POST("/stage/size/batch/compact", st.sizeBatchCompact)
 	gh := gasHandler{svc: svc, decoder: dec, enc: enc, log: log}
 	v1.POST("/gas/properties", gh.properties)
 	v1.GET("/gas/components", gh.components)
