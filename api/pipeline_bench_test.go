@@ -127,8 +127,8 @@ func BenchmarkPipelineConvert(b *testing.B) {
 }
 
 func BenchmarkPipelineUseCase(b *testing.B) {
+	svc := service.New()
 	eachPipelineDuty(b, func(b *testing.B, _ *requestDecoder, pc pipelineCase) {
-		svc := service.New()
 		for b.Loop() {
 			if _, err := svc.SizeStage(context.Background(), pc.duty); err != nil {
 				b.Fatal(err)
@@ -159,11 +159,11 @@ func BenchmarkPipelineGuard(b *testing.B) {
 
 // BenchmarkPipelineEncode: the answer encoder (sonic, pooled buffer).
 func BenchmarkPipelineEncode(b *testing.B) {
+	enc, err := newAnswerEncoder() // compiles the encoders: not part of a request's cost
+	if err != nil {
+		b.Fatal(err)
+	}
 	eachPipelineDuty(b, func(b *testing.B, _ *requestDecoder, pc pipelineCase) {
-		enc, err := newAnswerEncoder()
-		if err != nil {
-			b.Fatal(err)
-		}
 		for b.Loop() {
 			buf, err := enc.encode(&pc.out)
 			if err != nil {
