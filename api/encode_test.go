@@ -20,7 +20,7 @@ func TestAppendJSONIsEncodingJSON(t *testing.T) {
 	n := 17
 	values := []any{
 		StageResponse{Verdict: "a<b & c>d", Cautions: []string{"\u2028 line \u2029 sep", "bad \xff utf-8", "tab\t\"quote\" \\ \x01"},
-			Limits:   []LimitOut{{Rule: "r", Value: 1e21, Warning: 1e-6, Limit: &lim, Margin: -0.0}},
+			Limits:   []LimitOut{{Rule: "r", Value: 1e21, Warning: 1e-6, Limit: &lim, Margin: math.Copysign(0, -1)}},
 			Geometry: GeometryOut{BladeCount: &n}},
 		[]float64{0, 1, -1, 0.1, 1.0 / 3, 1e20, 1e21, 123456789012345680000, 1e-6, 9.99999e-7, 5e-324, math.MaxFloat64,
 			-math.SmallestNonzeroFloat64, 2.5e-8, 101325, 0.000123, 1.5e300},

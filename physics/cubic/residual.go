@@ -64,21 +64,15 @@ type Residual struct {
 	DPdV float64
 }
 
-// params returns the mixture a(T) (Pa m6/mol2), da/dT, d²a/dT² and
-// b (m3/mol) of the van der Waals one-fluid rules
+// mixSums are the composition sums of the van der Waals one-fluid rules
 //
 //	a = Σi Σj xi xj (1 − kij) √ai √aj,  b = Σi xi bi.
 //
 // With √ai = qa_i + qb_i √T (linear in √T for the Soave α function),
-// a = α0 + α1 √T + α2 T, so da/dT = α1/(2√T) + α2 and
-// d²a/dT² = −α1/(4 T √T), all exact.
-func (m *Mixture) params(x []float64, t float64) (a, da, d2a, b float64) {
-	return m.sums(x).at(t)
-}
-
-// mixSums are the composition sums of the mixing rules: a(T) = a0 +
-// a1 √T + a2 T and b. They depend on the composition only, so a model of
-// fixed composition computes them once (Fixed).
+// a = a0 + a1 √T + a2 T (Pa m6/mol2), so da/dT = a1/(2√T) + a2 and
+// d²a/dT² = −a1/(4 T √T), all exact; b in m3/mol. The sums depend on the
+// composition only, so a model of fixed composition computes them once
+// (Fixed).
 type mixSums struct{ a0, a1, a2, b float64 }
 
 func (m *Mixture) sums(x []float64) (s mixSums) {
