@@ -237,8 +237,8 @@ func responseOf(res service.StageResult) (StageResponse, error) {
 		Polytropic: PolytropicOut{Used: p.Method.String(), StepwiseHead: float64(p.Stepwise.Head), StepwiseSteps: p.Stepwise.Steps,
 			SchultzHead: float64(p.Schultz.Head), SchultzFactor: p.Schultz.HeadFactor, Difference: p.HeadDifference},
 		Verdict:  res.Verdict,
-		Limits:   []LimitOut{},
-		Warnings: []WarningOut{},
+		Limits:   make([]LimitOut, 0, len(res.Assessments)),
+		Warnings: make([]WarningOut, 0, len(res.Warnings)),
 		Cautions: res.Cautions,
 	}
 	pos := func(v float64) *float64 {
@@ -286,7 +286,7 @@ func responseOf(res service.StageResult) (StageResponse, error) {
 			Value: w.Value, Limit: w.Limit, Margin: w.Margin, Unit: w.Unit, Basis: w.Basis})
 	}
 	out.Provenance = provenanceOut(res.Provenance)
-	if err := allFinite(out); err != nil {
+	if err := stageFinite.check(&out); err != nil {
 		return StageResponse{}, err
 	}
 	return out, nil

@@ -143,6 +143,7 @@ type MixtureOut struct {
 type gasHandler struct {
 	svc     GasPropertyService
 	decoder *requestDecoder
+	enc     *answerEncoder
 	log     *slog.Logger
 }
 
@@ -199,7 +200,7 @@ func (h gasHandler) properties(c *gin.Context) {
 		Density: float64(st.Density), Compressibility: st.Compressibility, MolarMass: st.MolarMass,
 		Enthalpy: float64(st.Enthalpy), Entropy: float64(st.Entropy), Cp: float64(st.Cp), Cv: float64(st.Cv),
 		IsentropicExponent: st.IsentropicExponent, SpeedOfSound: float64(st.SoundSpeed), JouleThomson: st.JouleThomson,
-		SchultzX: st.SchultzX, SchultzY: st.SchultzY, Phase: string(st.Phase), Composition: []ComponentFraction{},
+		SchultzX: st.SchultzX, SchultzY: st.SchultzY, Phase: string(st.Phase), Composition: make([]ComponentFraction, 0, len(res.Components)),
 		Notes: append([]string{}, res.Notes...), ReferenceState: service.ReferenceState, Provenance: provenanceOut(res.Provenance),
 		Cautions: res.Cautions}
 	if res.WaterDewPoint > 0 {
@@ -209,11 +210,11 @@ func (h gasHandler) properties(c *gin.Context) {
 	for i, n := range res.Components {
 		out.Composition = append(out.Composition, ComponentFraction{Component: n, MoleFraction: res.MoleFractions[i]})
 	}
-	if err := allFinite(out); err != nil {
+	if err := propsFinite.check(&out); err != nil {
 		fail(c, h.log, err)
 		return
 	}
-	c.JSON(http.StatusOK, out)
+	h.enc.write(c, h.log, http.StatusOK, &out)
 }
 
 // components lists the gas catalogue.
@@ -269,7 +270,7 @@ func gasInputOf(g GasSpec) service.GasInput {
 
 func provenanceOut(p service.Provenance) ProvenanceOut {
 	out := ProvenanceOut{ModelVersion: p.ModelVersion, ServiceVersion: p.ServiceVersion, GasModel: p.GasModel, InputHash: p.InputHash,
-		Methods: []MethodOut{}, DefaultsApplied: []DefaultOut{}}
+		Methods: make([]MethodOut, 0, len(p.Methods)), DefaultsApplied: make([]DefaultOut, 0, len(p.Defaults))}
 	for _, m := range p.Methods {
 		out.Methods = append(out.Methods, MethodOut(m))
 	}

@@ -14,6 +14,8 @@ import (
 
 	"github.com/stretchr/testify/assert"
 	"github.com/stretchr/testify/require"
+
+	"stagewright/api"
 )
 
 // update rewrites the golden files from the current service:
@@ -85,6 +87,9 @@ func runGoldens(t *testing.T, dir string, check func(t *testing.T, code int, bod
 				assert.Equal(t, want.Status, w.Code, "golden status")
 			}
 			assertJSONClose(t, golden, got)
+			if w.Code == http.StatusOK {
+				assertEncodingJSONBytes(t, got)
+			}
 		})
 	}
 }
@@ -147,4 +152,20 @@ func align(want, got any) any {
 
 func close(a, b float64) bool {
 	return math.Abs(a-b) <= goldenTolerance*math.Max(math.Abs(a), math.Abs(b))+goldenFloor
+}
+
+// assertEncodingJSONBytes pins the answer's bytes: the service encodes with
+// bytedance/sonic (api/encode.go), which must write exactly what
+// encoding/json writes for the same value (field order, float text,
+// escapes), so decoding the answer and encoding it again with
+// encoding/json gives the same bytes.
+func assertEncodingJSONBytes(t *testing.T, got []byte) {
+	t.Helper()
+	var v api.StageResponse
+	dec := json.NewDecoder(bytes.NewReader(got))
+	dec.DisallowUnknownFields()
+	require.NoError(t, dec.Decode(&v))
+	want, err := json.Marshal(v)
+	require.NoError(t, err)
+	require.Equal(t, string(want), string(got), "the answer's bytes differ from encoding/json's")
 }

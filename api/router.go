@@ -122,11 +122,17 @@ func NewRouter(svc Services, opts Options) (*gin.Engine, error) {
 	if opts.ComputeTimeout > 0 {
 		v1.Use(computeDeadline(opts.ComputeTimeout))
 	}
+	enc, err := newAnswerEncoder()
+	if err != nil {
+		return nil, err
+	}
 	dec := newRequestDecoder(StageRequest{}, BatchRequest{}, PropertiesRequest{})
-	st := stageHandler{svc: svc, decoder: dec, log: log}
+	st := stageHandler{svc: svc, decoder: dec, enc: enc, log: log}
 	v1.POST("/stage/size", st.size)
 	v1.POST("/stage/size/batch", st.sizeBatch)
-	gh := gasHandler{svc: svc, decoder: dec, log: log}
+	v1.POST("/stage/size/compact", st.sizeCompact)
+	v1.POST("/stage/size/batch/compact", st.sizeBatchCompact)
+	gh := gasHandler{svc: svc, decoder: dec, enc: enc, log: log}
 	v1.POST("/gas/properties", gh.properties)
 	v1.GET("/gas/components", gh.components)
 	return r, nil

@@ -18,6 +18,7 @@ type StageSizer interface {
 type stageHandler struct {
 	svc     StageSizer
 	decoder *requestDecoder
+	enc     *answerEncoder
 	log     *slog.Logger
 }
 
@@ -50,7 +51,7 @@ func (h stageHandler) size(c *gin.Context) {
 		fail(c, h.log, err)
 		return
 	}
-	c.JSON(http.StatusOK, out)
+	h.enc.write(c, h.log, http.StatusOK, &out)
 }
 
 // sizeOne converts, sizes and renders one checked request.

@@ -35,6 +35,8 @@ var serverEnv = []string{
 	"STAGEWRIGHT_TLS_CERT_FILE",
 	"STAGEWRIGHT_TLS_KEY_FILE",
 	"STAGEWRIGHT_CORS_ORIGINS",
+	"STAGEWRIGHT_GC_PERCENT",
+	"STAGEWRIGHT_MEMORY_LIMIT",
 }
 
 // servedPaths are the routes the manifests and the image point at.

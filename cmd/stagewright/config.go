@@ -37,6 +37,13 @@ type config struct {
 
 	TLSCertFile string
 	TLSKeyFile  string
+
+	// GCPercent is the garbage collector's target (GOGC): the heap may
+	// grow this many percent over the live heap before a collection.
+	GCPercent int
+	// MemoryLimit is Go's soft memory limit in bytes (GOMEMLIMIT); 0
+	// leaves the runtime's (GOMEMLIMIT or none).
+	MemoryLimit int64
 }
 
 // defaultConfig is the configuration with nothing set.
@@ -46,8 +53,16 @@ func defaultConfig() config {
 		MaxBodyBytes: 1 << 20, MaxInFlight: 64,
 		ReadHeaderTimeout: 5 * time.Second, ReadTimeout: 15 * time.Second, WriteTimeout: 30 * time.Second,
 		IdleTimeout: 120 * time.Second, ComputeTimeout: 20 * time.Second, ShutdownGrace: 10 * time.Second,
+		GCPercent: DefaultGCPercent,
 	}
 }
+
+// DefaultGCPercent is the default garbage-collection target. A request
+// allocates tens of kilobytes that die at once and the live heap is a few
+// megabytes, so collecting at 5x the live heap instead of Go's 2x cuts the
+// collector's CPU share (issue 14: about 18 % of a sizing's CPU at GOGC
+// 100) for about 12 MB more resident memory.
+const DefaultGCPercent = 400
 
 // minTokenLength is the shortest bearer token accepted (16 characters:
 // common practice for a random secret, e.g. 96 bits in base64).
@@ -108,6 +123,8 @@ func loadConfig(args []string, getenv func(string) string, stderr io.Writer) (co
 	delay := dur("shutdown-delay", "STAGEWRIGHT_SHUTDOWN_DELAY", cfg.ShutdownDelay, "time between SIGTERM (readiness off) and closing the listener, for load balancers to notice; 0s: none")
 	cert := str("tls-cert-file", "STAGEWRIGHT_TLS_CERT_FILE", "", "PEM certificate chain; with --tls-key-file, serve HTTPS")
 	key := str("tls-key-file", "STAGEWRIGHT_TLS_KEY_FILE", "", "PEM private key of --tls-cert-file")
+	gcPercent := str("gc-percent", "STAGEWRIGHT_GC_PERCENT", strconv.Itoa(cfg.GCPercent), "garbage-collection target in percent of the live heap (as GOGC, which it overrides)")
+	memLimit := str("memory-limit", "STAGEWRIGHT_MEMORY_LIMIT", "", "Go's soft memory limit, e.g. 230MiB (as GOMEMLIMIT, which it overrides); empty: GOMEMLIMIT or none")
 	fs.Usage = func() {
 		fmt.Fprintln(fs.Output(), "Usage of stagewright (every flag also reads its STAGEWRIGHT_* variable; a flag wins):")
 		fs.PrintDefaults()
@@ -141,6 +158,18 @@ func loadConfig(args []string, getenv func(string) string, stderr io.Writer) (co
 		bad(maxInFlight, "want a whole number of requests from 1 to 100000")
 	} else {
 		cfg.MaxInFlight = n
+	}
+	if n, err := strconv.Atoi(*gcPercent.value); err != nil || n < 10 || n > 10000 {
+		bad(gcPercent, "want a whole percentage from 10 to 10000")
+	} else {
+		cfg.GCPercent = n
+	}
+	if *memLimit.value != "" {
+		if n, err := parseBytes(*memLimit.value); err != nil || n < 16<<20 {
+			bad(memLimit, "want a size of at least 16MiB: bytes, or a number with KiB, MiB or GiB")
+		} else {
+			cfg.MemoryLimit = n
+		}
 	}
 	for _, d := range []struct {
 		s     setting
@@ -198,6 +227,26 @@ func loadConfig(args []string, getenv func(string) string, stderr io.Writer) (co
 		return cfg, err
 	}
 	return cfg, nil
+}
+
+// parseBytes reads a size as GOMEMLIMIT writes it: a whole number of
+// bytes, optionally with the suffix B, KiB, MiB or GiB.
+func parseBytes(v string) (int64, error) {
+	mult := int64(1)
+	for _, u := range []struct {
+		suffix string
+		mult   int64
+	}{{"KiB", 1 << 10}, {"MiB", 1 << 20}, {"GiB", 1 << 30}, {"B", 1}} {
+		if n, ok := strings.CutSuffix(v, u.suffix); ok {
+			v, mult = n, u.mult
+			break
+		}
+	}
+	n, err := strconv.ParseInt(v, 10, 64)
+	if err != nil || n < 0 || n > (1<<50)/mult {
+		return 0, errors.New("not a size")
+	}
+	return n * mult, nil
 }
 
 // parseTokens splits STAGEWRIGHT_API_TOKENS. Its errors name the token by

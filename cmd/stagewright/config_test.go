@@ -66,6 +66,17 @@ func TestLoadConfig(t *testing.T) {
 				c.ComputeTimeout, c.ShutdownGrace = 2500*time.Millisecond, 5*time.Second
 				c.TLSCertFile, c.TLSKeyFile = certFile, keyFile
 			})},
+		{name: "garbage collection from env", env: map[string]string{"STAGEWRIGHT_GC_PERCENT": "150", "STAGEWRIGHT_MEMORY_LIMIT": "230MiB"},
+			want: with(func(c *config) { c.GCPercent, c.MemoryLimit = 150, 230<<20 })},
+		{name: "garbage collection from flags, over env", args: []string{"--gc-percent=800", "--memory-limit=1GiB"},
+			env:  map[string]string{"STAGEWRIGHT_GC_PERCENT": "x", "STAGEWRIGHT_MEMORY_LIMIT": "x"},
+			want: with(func(c *config) { c.GCPercent, c.MemoryLimit = 800, 1<<30 })},
+		{name: "memory limit in bytes", env: map[string]string{"STAGEWRIGHT_MEMORY_LIMIT": "67108864"},
+			want: with(func(c *config) { c.MemoryLimit = 64 << 20 })},
+		{name: "gc percent too low", env: map[string]string{"STAGEWRIGHT_GC_PERCENT": "5"}, wantErr: []string{"STAGEWRIGHT_GC_PERCENT", "10 to 10000"}},
+		{name: "gc percent off is not a number", args: []string{"--gc-percent=off"}, wantErr: []string{"--gc-percent", "percentage"}},
+		{name: "memory limit too small", env: map[string]string{"STAGEWRIGHT_MEMORY_LIMIT": "1MiB"}, wantErr: []string{"STAGEWRIGHT_MEMORY_LIMIT", "16MiB"}},
+		{name: "memory limit unit unknown", env: map[string]string{"STAGEWRIGHT_MEMORY_LIMIT": "2GB"}, wantErr: []string{"STAGEWRIGHT_MEMORY_LIMIT"}},
 		{name: "origin case folded", env: map[string]string{"STAGEWRIGHT_CORS_ORIGINS": "HTTPS://Ops.Example:8443/"},
 			want: with(func(c *config) { c.CORSOrigins = []string{"https://ops.example:8443"} })},
 

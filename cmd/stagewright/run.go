@@ -9,6 +9,7 @@ import (
 	"log/slog"
 	"net"
 	"net/http"
+	"runtime/debug"
 	"sync/atomic"
 	"time"
 
@@ -29,6 +30,10 @@ func run(ctx context.Context, args []string, getenv func(string) string, stdout,
 		return err
 	}
 	log := slog.New(slog.NewJSONHandler(stderr, &slog.HandlerOptions{Level: cfg.LogLevel}))
+	debug.SetGCPercent(cfg.GCPercent)
+	if cfg.MemoryLimit > 0 {
+		debug.SetMemoryLimit(cfg.MemoryLimit)
+	}
 	ver, rev := buildVersion()
 	var ready atomic.Bool
 	gin.SetMode(gin.ReleaseMode)
@@ -75,7 +80,8 @@ func run(ctx context.Context, args []string, getenv func(string) string, stdout,
 	log.Info("serving", "addr", ln.Addr().String(), "url", base, "openapi", base+"/openapi.json",
 		"version", ver, "commit", rev, "model_version", service.ModelVersion,
 		"auth", len(cfg.Tokens) > 0, "tls", useTLS, "max_in_flight", cfg.MaxInFlight,
-		"max_body_bytes", cfg.MaxBodyBytes, "compute_timeout", cfg.ComputeTimeout.String())
+		"max_body_bytes", cfg.MaxBodyBytes, "compute_timeout", cfg.ComputeTimeout.String(),
+		"gc_percent", cfg.GCPercent, "memory_limit", debug.SetMemoryLimit(-1))
 	if cfg.Demo {
 		token := ""
 		if len(cfg.Tokens) > 0 {

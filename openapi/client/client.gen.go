@@ -16,6 +16,75 @@ import (
 	"github.com/oapi-codegen/runtime"
 )
 
+// Defines values for ApiCompactLimitOutSeverity.
+const (
+	ApiCompactLimitOutSeverityLimit   ApiCompactLimitOutSeverity = "limit"
+	ApiCompactLimitOutSeverityNotice  ApiCompactLimitOutSeverity = "notice"
+	ApiCompactLimitOutSeverityOk      ApiCompactLimitOutSeverity = "ok"
+	ApiCompactLimitOutSeverityWarning ApiCompactLimitOutSeverity = "warning"
+)
+
+// Valid indicates whether the value is a known member of the ApiCompactLimitOutSeverity enum.
+func (e ApiCompactLimitOutSeverity) Valid() bool {
+	switch e {
+	case ApiCompactLimitOutSeverityLimit:
+		return true
+	case ApiCompactLimitOutSeverityNotice:
+		return true
+	case ApiCompactLimitOutSeverityOk:
+		return true
+	case ApiCompactLimitOutSeverityWarning:
+		return true
+	default:
+		return false
+	}
+}
+
+// Defines values for ApiCompactStageResponseVerdict.
+const (
+	ApiCompactStageResponseVerdictNearLimits   ApiCompactStageResponseVerdict = "near-limits"
+	ApiCompactStageResponseVerdictPastLimit    ApiCompactStageResponseVerdict = "past-limit"
+	ApiCompactStageResponseVerdictPastWarning  ApiCompactStageResponseVerdict = "past-warning"
+	ApiCompactStageResponseVerdictWithinLimits ApiCompactStageResponseVerdict = "within-limits"
+)
+
+// Valid indicates whether the value is a known member of the ApiCompactStageResponseVerdict enum.
+func (e ApiCompactStageResponseVerdict) Valid() bool {
+	switch e {
+	case ApiCompactStageResponseVerdictNearLimits:
+		return true
+	case ApiCompactStageResponseVerdictPastLimit:
+		return true
+	case ApiCompactStageResponseVerdictPastWarning:
+		return true
+	case ApiCompactStageResponseVerdictWithinLimits:
+		return true
+	default:
+		return false
+	}
+}
+
+// Defines values for ApiCompactWarningOutSeverity.
+const (
+	ApiCompactWarningOutSeverityLimit   ApiCompactWarningOutSeverity = "limit"
+	ApiCompactWarningOutSeverityNotice  ApiCompactWarningOutSeverity = "notice"
+	ApiCompactWarningOutSeverityWarning ApiCompactWarningOutSeverity = "warning"
+)
+
+// Valid indicates whether the value is a known member of the ApiCompactWarningOutSeverity enum.
+func (e ApiCompactWarningOutSeverity) Valid() bool {
+	switch e {
+	case ApiCompactWarningOutSeverityLimit:
+		return true
+	case ApiCompactWarningOutSeverityNotice:
+		return true
+	case ApiCompactWarningOutSeverityWarning:
+		return true
+	default:
+		return false
+	}
+}
+
 // Defines values for ApiCpRangeOutForm.
 const (
 	PolyR   ApiCpRangeOutForm = "poly-r"
@@ -333,22 +402,22 @@ func (e ApiSpeedChoiceOutBasis) Valid() bool {
 
 // Defines values for ApiStageResponseVerdict.
 const (
-	NearLimits   ApiStageResponseVerdict = "near-limits"
-	PastLimit    ApiStageResponseVerdict = "past-limit"
-	PastWarning  ApiStageResponseVerdict = "past-warning"
-	WithinLimits ApiStageResponseVerdict = "within-limits"
+	ApiStageResponseVerdictNearLimits   ApiStageResponseVerdict = "near-limits"
+	ApiStageResponseVerdictPastLimit    ApiStageResponseVerdict = "past-limit"
+	ApiStageResponseVerdictPastWarning  ApiStageResponseVerdict = "past-warning"
+	ApiStageResponseVerdictWithinLimits ApiStageResponseVerdict = "within-limits"
 )
 
 // Valid indicates whether the value is a known member of the ApiStageResponseVerdict enum.
 func (e ApiStageResponseVerdict) Valid() bool {
 	switch e {
-	case NearLimits:
+	case ApiStageResponseVerdictNearLimits:
 		return true
-	case PastLimit:
+	case ApiStageResponseVerdictPastLimit:
 		return true
-	case PastWarning:
+	case ApiStageResponseVerdictPastWarning:
 		return true
-	case WithinLimits:
+	case ApiStageResponseVerdictWithinLimits:
 		return true
 	default:
 		return false
@@ -466,6 +535,107 @@ type ApiCoefficientsOut struct {
 	// Work Work is w/U2².
 	Work float64 `json:"work"`
 }
+
+// ApiCompactBatchItem defines model for api.CompactBatchItem.
+type ApiCompactBatchItem struct {
+	// Index Index is the duty's position in the request, from 0.
+	Index   int                      `json:"index"`
+	Problem *ApiProblem              `json:"problem,omitempty"`
+	Result  *ApiCompactStageResponse `json:"result,omitempty"`
+
+	// Status Status is the HTTP status the duty would have had on its own.
+	//
+	// Example: 200
+	Status int `json:"status"`
+}
+
+// ApiCompactBatchResponse defines model for api.CompactBatchResponse.
+type ApiCompactBatchResponse struct {
+	Failed  int                   `json:"failed"`
+	Results []ApiCompactBatchItem `json:"results"`
+
+	// Succeeded Succeeded and Failed count the results by outcome.
+	Succeeded int `json:"succeeded"`
+}
+
+// ApiCompactLimitOut defines model for api.CompactLimitOut.
+type ApiCompactLimitOut struct {
+	// Code Example: flow-coefficient
+	Code   string   `json:"code"`
+	Limit  *float64 `json:"limit,omitempty"`
+	Margin float64  `json:"margin"`
+
+	// Rule Example: flow-coefficient-low
+	Rule     string                     `json:"rule"`
+	Severity ApiCompactLimitOutSeverity `json:"severity"`
+	Value    float64                    `json:"value"`
+	Warning  float64                    `json:"warning"`
+}
+
+// ApiCompactLimitOutSeverity defines model for ApiCompactLimitOut.Severity.
+type ApiCompactLimitOutSeverity string
+
+// ApiCompactProvenanceOut defines model for api.CompactProvenanceOut.
+type ApiCompactProvenanceOut struct {
+	GasModel string `json:"gas_model"`
+
+	// InputHash InputHash is the SHA-256 of the normalised duty in SI units.
+	InputHash      string `json:"input_hash"`
+	ModelVersion   string `json:"model_version"`
+	ServiceVersion string `json:"service_version"`
+}
+
+// ApiCompactStageResponse defines model for api.CompactStageResponse.
+type ApiCompactStageResponse struct {
+	Coefficients ApiCoefficientsOut `json:"coefficients"`
+	Discharge    ApiDischargeOut    `json:"discharge"`
+	Efficiency   ApiEfficiencyOut   `json:"efficiency"`
+	Geometry     ApiGeometryOut     `json:"geometry"`
+	Head         ApiHeadOut         `json:"head"`
+	Inducer      ApiInducerOut      `json:"inducer"`
+
+	// Limits Limits lists every limit rule applied: its levels, value and margin.
+	Limits []ApiCompactLimitOut `json:"limits"`
+
+	// MassFlow MassFlow through the stage, kg/s.
+	MassFlow          float64                 `json:"mass_flow"`
+	PolytropicMethods ApiPolytropicOut        `json:"polytropic_methods"`
+	Power             ApiPowerOut             `json:"power"`
+	Provenance        ApiCompactProvenanceOut `json:"provenance"`
+
+	// Speed Speed is the rotational speed, rev/min.
+	Speed              float64             `json:"speed"`
+	SpeedChoice        ApiSpeedChoiceOut   `json:"speed_choice"`
+	StandardVolumeFlow ApiStandardFlowsOut `json:"standard_volume_flow"`
+	Stations           ApiStationsOut      `json:"stations"`
+
+	// SuctionVolumeFlow SuctionVolumeFlow is the actual volume flow at suction stagnation conditions, m3/s.
+	SuctionVolumeFlow float64          `json:"suction_volume_flow"`
+	Velocities        ApiVelocitiesOut `json:"velocities"`
+
+	// Verdict Verdict is as in the full view.
+	Verdict ApiCompactStageResponseVerdict `json:"verdict"`
+
+	// Warnings Warnings lists every concern by code, with its value and level.
+	Warnings []ApiCompactWarningOut `json:"warnings"`
+	Work     float64                `json:"work"`
+}
+
+// ApiCompactStageResponseVerdict Verdict is as in the full view.
+type ApiCompactStageResponseVerdict string
+
+// ApiCompactWarningOut defines model for api.CompactWarningOut.
+type ApiCompactWarningOut struct {
+	// Code Example: inducer-mach
+	Code     string                       `json:"code"`
+	Limit    float64                      `json:"limit"`
+	Margin   float64                      `json:"margin"`
+	Severity ApiCompactWarningOutSeverity `json:"severity"`
+	Value    float64                      `json:"value"`
+}
+
+// ApiCompactWarningOutSeverity defines model for ApiCompactWarningOut.Severity.
+type ApiCompactWarningOutSeverity string
 
 // ApiComponentFraction defines model for api.ComponentFraction.
 type ApiComponentFraction struct {
@@ -1799,6 +1969,12 @@ type SizeStageJSONRequestBody = ApiStageRequest
 // SizeStageBatchJSONRequestBody defines body for SizeStageBatch for application/json ContentType.
 type SizeStageBatchJSONRequestBody = ApiBatchRequest
 
+// SizeStageBatchCompactJSONRequestBody defines body for SizeStageBatchCompact for application/json ContentType.
+type SizeStageBatchCompactJSONRequestBody = ApiBatchRequest
+
+// SizeStageCompactJSONRequestBody defines body for SizeStageCompact for application/json ContentType.
+type SizeStageCompactJSONRequestBody = ApiStageRequest
+
 // AsApiDriverSpecRating0 returns the union data inside the ApiDriverSpec_Rating as a ApiDriverSpecRating0
 func (t ApiDriverSpec_Rating) AsApiDriverSpecRating0() (ApiDriverSpecRating0, error) {
 	var body ApiDriverSpecRating0
@@ -2991,7 +3167,7 @@ type ClientInterface interface {
 
 	// SizeStageBatchWithBody Size many stages in one call
 	//
-	// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own.
+	// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own. The answer is streamed item by item as the duties are sized (memory per request stays bounded). With `Accept: application/x-ndjson` the answer is newline-delimited JSON instead: one BatchItem per line, in request order, without the counts. When the compute deadline passes before the first duty is sized the whole batch answers 504; once the answer has begun, each duty not sized by the deadline gets a 504 compute-timeout item.
 	//
 	// Takes any type of body and a specified content type.
 	//
@@ -3000,12 +3176,48 @@ type ClientInterface interface {
 
 	// SizeStageBatch Size many stages in one call
 	//
-	// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own.
+	// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own. The answer is streamed item by item as the duties are sized (memory per request stays bounded). With `Accept: application/x-ndjson` the answer is newline-delimited JSON instead: one BatchItem per line, in request order, without the counts. When the compute deadline passes before the first duty is sized the whole batch answers 504; once the answer has begun, each duty not sized by the deadline gets a 504 compute-timeout item.
 	//
 	// Takes a body of the `application/json` content type.
 	//
 	// Corresponds with POST /v1/stage/size/batch (the `SizeStageBatch` operationId).
 	SizeStageBatch(ctx context.Context, body SizeStageBatchJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error)
+
+	// SizeStageBatchCompactWithBody Size many stages: compact answers for machines
+	//
+	// The same batch as POST /v1/stage/size/batch (same request, limits, streaming, NDJSON with `Accept: application/x-ndjson`, deadline behaviour), each result in the compact view of POST /v1/stage/size/compact.
+	//
+	// Takes any type of body and a specified content type.
+	//
+	// Corresponds with POST /v1/stage/size/batch/compact (the `SizeStageBatchCompact` operationId).
+	SizeStageBatchCompactWithBody(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*http.Response, error)
+
+	// SizeStageBatchCompact Size many stages: compact answers for machines
+	//
+	// The same batch as POST /v1/stage/size/batch (same request, limits, streaming, NDJSON with `Accept: application/x-ndjson`, deadline behaviour), each result in the compact view of POST /v1/stage/size/compact.
+	//
+	// Takes a body of the `application/json` content type.
+	//
+	// Corresponds with POST /v1/stage/size/batch/compact (the `SizeStageBatchCompact` operationId).
+	SizeStageBatchCompact(ctx context.Context, body SizeStageBatchCompactJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error)
+
+	// SizeStageCompactWithBody Size one stage: compact answer for machines
+	//
+	// The same sizing as POST /v1/stage/size (same request, same problems) answered in the compact view: every number, code and the verdict, the provenance's model and input hash, without the limit table's prose and bases, the warning messages, the methods, the defaults, the kij table and the cautions (about half the bytes of the full answer). For process simulators and other machines; a person reading a result should use the full view, whose cautions apply to this answer too.
+	//
+	// Takes any type of body and a specified content type.
+	//
+	// Corresponds with POST /v1/stage/size/compact (the `SizeStageCompact` operationId).
+	SizeStageCompactWithBody(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*http.Response, error)
+
+	// SizeStageCompact Size one stage: compact answer for machines
+	//
+	// The same sizing as POST /v1/stage/size (same request, same problems) answered in the compact view: every number, code and the verdict, the provenance's model and input hash, without the limit table's prose and bases, the warning messages, the methods, the defaults, the kij table and the cautions (about half the bytes of the full answer). For process simulators and other machines; a person reading a result should use the full view, whose cautions apply to this answer too.
+	//
+	// Takes a body of the `application/json` content type.
+	//
+	// Corresponds with POST /v1/stage/size/compact (the `SizeStageCompact` operationId).
+	SizeStageCompact(ctx context.Context, body SizeStageCompactJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error)
 
 	// GetVersion Build and model version
 	//
@@ -3157,7 +3369,7 @@ func (c *Client) SizeStage(ctx context.Context, body SizeStageJSONRequestBody, r
 
 // SizeStageBatchWithBody Size many stages in one call
 //
-// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own.
+// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own. The answer is streamed item by item as the duties are sized (memory per request stays bounded). With `Accept: application/x-ndjson` the answer is newline-delimited JSON instead: one BatchItem per line, in request order, without the counts. When the compute deadline passes before the first duty is sized the whole batch answers 504; once the answer has begun, each duty not sized by the deadline gets a 504 compute-timeout item.
 //
 // Takes any type of body and a specified content type.
 //
@@ -3176,13 +3388,89 @@ func (c *Client) SizeStageBatchWithBody(ctx context.Context, contentType string,
 
 // SizeStageBatch Size many stages in one call
 //
-// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own.
+// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own. The answer is streamed item by item as the duties are sized (memory per request stays bounded). With `Accept: application/x-ndjson` the answer is newline-delimited JSON instead: one BatchItem per line, in request order, without the counts. When the compute deadline passes before the first duty is sized the whole batch answers 504; once the answer has begun, each duty not sized by the deadline gets a 504 compute-timeout item.
 //
 // Takes a body of the `application/json` content type.
 //
 // Corresponds with POST /v1/stage/size/batch (the `SizeStageBatch` operationId).
 func (c *Client) SizeStageBatch(ctx context.Context, body SizeStageBatchJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error) {
 	req, err := NewSizeStageBatchRequest(c.Server, body)
+	if err != nil {
+		return nil, err
+	}
+	req = req.WithContext(ctx)
+	if err := c.applyEditors(ctx, req, reqEditors); err != nil {
+		return nil, err
+	}
+	return c.Client.Do(req)
+}
+
+// SizeStageBatchCompactWithBody Size many stages: compact answers for machines
+//
+// The same batch as POST /v1/stage/size/batch (same request, limits, streaming, NDJSON with `Accept: application/x-ndjson`, deadline behaviour), each result in the compact view of POST /v1/stage/size/compact.
+//
+// Takes any type of body and a specified content type.
+//
+// Corresponds with POST /v1/stage/size/batch/compact (the `SizeStageBatchCompact` operationId).
+func (c *Client) SizeStageBatchCompactWithBody(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*http.Response, error) {
+	req, err := NewSizeStageBatchCompactRequestWithBody(c.Server, contentType, body)
+	if err != nil {
+		return nil, err
+	}
+	req = req.WithContext(ctx)
+	if err := c.applyEditors(ctx, req, reqEditors); err != nil {
+		return nil, err
+	}
+	return c.Client.Do(req)
+}
+
+// SizeStageBatchCompact Size many stages: compact answers for machines
+//
+// The same batch as POST /v1/stage/size/batch (same request, limits, streaming, NDJSON with `Accept: application/x-ndjson`, deadline behaviour), each result in the compact view of POST /v1/stage/size/compact.
+//
+// Takes a body of the `application/json` content type.
+//
+// Corresponds with POST /v1/stage/size/batch/compact (the `SizeStageBatchCompact` operationId).
+func (c *Client) SizeStageBatchCompact(ctx context.Context, body SizeStageBatchCompactJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error) {
+	req, err := NewSizeStageBatchCompactRequest(c.Server, body)
+	if err != nil {
+		return nil, err
+	}
+	req = req.WithContext(ctx)
+	if err := c.applyEditors(ctx, req, reqEditors); err != nil {
+		return nil, err
+	}
+	return c.Client.Do(req)
+}
+
+// SizeStageCompactWithBody Size one stage: compact answer for machines
+//
+// The same sizing as POST /v1/stage/size (same request, same problems) answered in the compact view: every number, code and the verdict, the provenance's model and input hash, without the limit table's prose and bases, the warning messages, the methods, the defaults, the kij table and the cautions (about half the bytes of the full answer). For process simulators and other machines; a person reading a result should use the full view, whose cautions apply to this answer too.
+//
+// Takes any type of body and a specified content type.
+//
+// Corresponds with POST /v1/stage/size/compact (the `SizeStageCompact` operationId).
+func (c *Client) SizeStageCompactWithBody(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*http.Response, error) {
+	req, err := NewSizeStageCompactRequestWithBody(c.Server, contentType, body)
+	if err != nil {
+		return nil, err
+	}
+	req = req.WithContext(ctx)
+	if err := c.applyEditors(ctx, req, reqEditors); err != nil {
+		return nil, err
+	}
+	return c.Client.Do(req)
+}
+
+// SizeStageCompact Size one stage: compact answer for machines
+//
+// The same sizing as POST /v1/stage/size (same request, same problems) answered in the compact view: every number, code and the verdict, the provenance's model and input hash, without the limit table's prose and bases, the warning messages, the methods, the defaults, the kij table and the cautions (about half the bytes of the full answer). For process simulators and other machines; a person reading a result should use the full view, whose cautions apply to this answer too.
+//
+// Takes a body of the `application/json` content type.
+//
+// Corresponds with POST /v1/stage/size/compact (the `SizeStageCompact` operationId).
+func (c *Client) SizeStageCompact(ctx context.Context, body SizeStageCompactJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error) {
+	req, err := NewSizeStageCompactRequest(c.Server, body)
 	if err != nil {
 		return nil, err
 	}
@@ -3436,6 +3724,86 @@ func NewSizeStageBatchRequestWithBody(server string, contentType string, body io
 	return req, nil
 }
 
+// NewSizeStageBatchCompactRequest calls the generic SizeStageBatchCompact builder with application/json body
+func NewSizeStageBatchCompactRequest(server string, body SizeStageBatchCompactJSONRequestBody) (*http.Request, error) {
+	var bodyReader io.Reader
+	buf, err := json.Marshal(body)
+	if err != nil {
+		return nil, err
+	}
+	bodyReader = bytes.NewReader(buf)
+	return NewSizeStageBatchCompactRequestWithBody(server, "application/json", bodyReader)
+}
+
+// NewSizeStageBatchCompactRequestWithBody constructs an http.Request for the SizeStageBatchCompact method, with any body, and a specified content type
+func NewSizeStageBatchCompactRequestWithBody(server string, contentType string, body io.Reader) (*http.Request, error) {
+	var err error
+
+	serverURL, err := url.Parse(server)
+	if err != nil {
+		return nil, err
+	}
+
+	operationPath := fmt.Sprintf("/v1/stage/size/batch/compact")
+	if operationPath[0] == '/' {
+		operationPath = "." + operationPath
+	}
+
+	queryURL, err := serverURL.Parse(operationPath)
+	if err != nil {
+		return nil, err
+	}
+
+	req, err := http.NewRequest(http.MethodPost, queryURL.String(), body)
+	if err != nil {
+		return nil, err
+	}
+
+	req.Header.Add("Content-Type", contentType)
+
+	return req, nil
+}
+
+// NewSizeStageCompactRequest calls the generic SizeStageCompact builder with application/json body
+func NewSizeStageCompactRequest(server string, body SizeStageCompactJSONRequestBody) (*http.Request, error) {
+	var bodyReader io.Reader
+	buf, err := json.Marshal(body)
+	if err != nil {
+		return nil, err
+	}
+	bodyReader = bytes.NewReader(buf)
+	return NewSizeStageCompactRequestWithBody(server, "application/json", bodyReader)
+}
+
+// NewSizeStageCompactRequestWithBody constructs an http.Request for the SizeStageCompact method, with any body, and a specified content type
+func NewSizeStageCompactRequestWithBody(server string, contentType string, body io.Reader) (*http.Request, error) {
+	var err error
+
+	serverURL, err := url.Parse(server)
+	if err != nil {
+		return nil, err
+	}
+
+	operationPath := fmt.Sprintf("/v1/stage/size/compact")
+	if operationPath[0] == '/' {
+		operationPath = "." + operationPath
+	}
+
+	queryURL, err := serverURL.Parse(operationPath)
+	if err != nil {
+		return nil, err
+	}
+
+	req, err := http.NewRequest(http.MethodPost, queryURL.String(), body)
+	if err != nil {
+		return nil, err
+	}
+
+	req.Header.Add("Content-Type", contentType)
+
+	return req, nil
+}
+
 // NewGetVersionRequest constructs an http.Request for the GetVersion method
 func NewGetVersionRequest(server string) (*http.Request, error) {
 	var err error
@@ -3579,7 +3947,7 @@ type ClientWithResponsesInterface interface {
 
 	// SizeStageBatchWithBodyWithResponse Size many stages in one call
 	//
-	// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own.
+	// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own. The answer is streamed item by item as the duties are sized (memory per request stays bounded). With `Accept: application/x-ndjson` the answer is newline-delimited JSON instead: one BatchItem per line, in request order, without the counts. When the compute deadline passes before the first duty is sized the whole batch answers 504; once the answer has begun, each duty not sized by the deadline gets a 504 compute-timeout item.
 	//
 	// Takes any type of body and a specified content type, and returns a wrapper object for the known response body format(s).
 	//
@@ -3588,12 +3956,48 @@ type ClientWithResponsesInterface interface {
 
 	// SizeStageBatchWithResponse Size many stages in one call
 	//
-	// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own.
+	// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own. The answer is streamed item by item as the duties are sized (memory per request stays bounded). With `Accept: application/x-ndjson` the answer is newline-delimited JSON instead: one BatchItem per line, in request order, without the counts. When the compute deadline passes before the first duty is sized the whole batch answers 504; once the answer has begun, each duty not sized by the deadline gets a 504 compute-timeout item.
 	//
 	// Takes a body of the `application/json` content type, and returns a wrapper object for the known response body format(s).
 	//
 	// Corresponds with POST /v1/stage/size/batch (the `SizeStageBatch` operationId).
 	SizeStageBatchWithResponse(ctx context.Context, body SizeStageBatchJSONRequestBody, reqEditors ...RequestEditorFn) (*SizeStageBatchResponse, error)
+
+	// SizeStageBatchCompactWithBodyWithResponse Size many stages: compact answers for machines
+	//
+	// The same batch as POST /v1/stage/size/batch (same request, limits, streaming, NDJSON with `Accept: application/x-ndjson`, deadline behaviour), each result in the compact view of POST /v1/stage/size/compact.
+	//
+	// Takes any type of body and a specified content type, and returns a wrapper object for the known response body format(s).
+	//
+	// Corresponds with POST /v1/stage/size/batch/compact (the `SizeStageBatchCompact` operationId).
+	SizeStageBatchCompactWithBodyWithResponse(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*SizeStageBatchCompactResponse, error)
+
+	// SizeStageBatchCompactWithResponse Size many stages: compact answers for machines
+	//
+	// The same batch as POST /v1/stage/size/batch (same request, limits, streaming, NDJSON with `Accept: application/x-ndjson`, deadline behaviour), each result in the compact view of POST /v1/stage/size/compact.
+	//
+	// Takes a body of the `application/json` content type, and returns a wrapper object for the known response body format(s).
+	//
+	// Corresponds with POST /v1/stage/size/batch/compact (the `SizeStageBatchCompact` operationId).
+	SizeStageBatchCompactWithResponse(ctx context.Context, body SizeStageBatchCompactJSONRequestBody, reqEditors ...RequestEditorFn) (*SizeStageBatchCompactResponse, error)
+
+	// SizeStageCompactWithBodyWithResponse Size one stage: compact answer for machines
+	//
+	// The same sizing as POST /v1/stage/size (same request, same problems) answered in the compact view: every number, code and the verdict, the provenance's model and input hash, without the limit table's prose and bases, the warning messages, the methods, the defaults, the kij table and the cautions (about half the bytes of the full answer). For process simulators and other machines; a person reading a result should use the full view, whose cautions apply to this answer too.
+	//
+	// Takes any type of body and a specified content type, and returns a wrapper object for the known response body format(s).
+	//
+	// Corresponds with POST /v1/stage/size/compact (the `SizeStageCompact` operationId).
+	SizeStageCompactWithBodyWithResponse(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*SizeStageCompactResponse, error)
+
+	// SizeStageCompactWithResponse Size one stage: compact answer for machines
+	//
+	// The same sizing as POST /v1/stage/size (same request, same problems) answered in the compact view: every number, code and the verdict, the provenance's model and input hash, without the limit table's prose and bases, the warning messages, the methods, the defaults, the kij table and the cautions (about half the bytes of the full answer). For process simulators and other machines; a person reading a result should use the full view, whose cautions apply to this answer too.
+	//
+	// Takes a body of the `application/json` content type, and returns a wrapper object for the known response body format(s).
+	//
+	// Corresponds with POST /v1/stage/size/compact (the `SizeStageCompact` operationId).
+	SizeStageCompactWithResponse(ctx context.Context, body SizeStageCompactJSONRequestBody, reqEditors ...RequestEditorFn) (*SizeStageCompactResponse, error)
 
 	// GetVersionWithResponse Build and model version
 	//
@@ -4044,6 +4448,179 @@ func (r SizeStageBatchResponse) ContentType() string {
 	return ""
 }
 
+type SizeStageBatchCompactResponse struct {
+	Body         []byte
+	HTTPResponse *http.Response
+	// JSON200 the response for an HTTP 200 `application/json` response
+	JSON200 *ApiCompactBatchResponse
+	// ApplicationproblemJSON400 the response for an HTTP 400 `application/problem+json` response
+	ApplicationproblemJSON400 *ApiProblem
+	// ApplicationproblemJSON401 the response for an HTTP 401 `application/problem+json` response
+	ApplicationproblemJSON401 *ApiProblem
+	// ApplicationproblemJSON413 the response for an HTTP 413 `application/problem+json` response
+	ApplicationproblemJSON413 *ApiProblem
+	// ApplicationproblemJSON500 the response for an HTTP 500 `application/problem+json` response
+	ApplicationproblemJSON500 *ApiProblem
+	// ApplicationproblemJSON503 the response for an HTTP 503 `application/problem+json` response
+	ApplicationproblemJSON503 *ApiProblem
+	// ApplicationproblemJSON504 the response for an HTTP 504 `application/problem+json` response
+	ApplicationproblemJSON504 *ApiProblem
+}
+
+// GetJSON200 returns the response for an HTTP 200 `application/json` response
+func (r SizeStageBatchCompactResponse) GetJSON200() *ApiCompactBatchResponse {
+	return r.JSON200
+}
+
+// GetApplicationproblemJSON400 returns the response for an HTTP 400 `application/problem+json` response
+func (r SizeStageBatchCompactResponse) GetApplicationproblemJSON400() *ApiProblem {
+	return r.ApplicationproblemJSON400
+}
+
+// GetApplicationproblemJSON401 returns the response for an HTTP 401 `application/problem+json` response
+func (r SizeStageBatchCompactResponse) GetApplicationproblemJSON401() *ApiProblem {
+	return r.ApplicationproblemJSON401
+}
+
+// GetApplicationproblemJSON413 returns the response for an HTTP 413 `application/problem+json` response
+func (r SizeStageBatchCompactResponse) GetApplicationproblemJSON413() *ApiProblem {
+	return r.ApplicationproblemJSON413
+}
+
+// GetApplicationproblemJSON500 returns the response for an HTTP 500 `application/problem+json` response
+func (r SizeStageBatchCompactResponse) GetApplicationproblemJSON500() *ApiProblem {
+	return r.ApplicationproblemJSON500
+}
+
+// GetApplicationproblemJSON503 returns the response for an HTTP 503 `application/problem+json` response
+func (r SizeStageBatchCompactResponse) GetApplicationproblemJSON503() *ApiProblem {
+	return r.ApplicationproblemJSON503
+}
+
+// GetApplicationproblemJSON504 returns the response for an HTTP 504 `application/problem+json` response
+func (r SizeStageBatchCompactResponse) GetApplicationproblemJSON504() *ApiProblem {
+	return r.ApplicationproblemJSON504
+}
+
+// GetBody returns the raw response body bytes
+func (r SizeStageBatchCompactResponse) GetBody() []byte {
+	return r.Body
+}
+
+// Status returns HTTPResponse.Status
+func (r SizeStageBatchCompactResponse) Status() string {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.Status
+	}
+	return http.StatusText(0)
+}
+
+// StatusCode returns HTTPResponse.StatusCode
+func (r SizeStageBatchCompactResponse) StatusCode() int {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.StatusCode
+	}
+	return 0
+}
+
+// ContentType is a convenience method to retrieve the Content-Type value from the HTTP response headers
+func (r SizeStageBatchCompactResponse) ContentType() string {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.Header.Get("Content-Type")
+	}
+	return ""
+}
+
+type SizeStageCompactResponse struct {
+	Body         []byte
+	HTTPResponse *http.Response
+	// JSON200 the response for an HTTP 200 `application/json` response
+	JSON200 *ApiCompactStageResponse
+	// ApplicationproblemJSON400 the response for an HTTP 400 `application/problem+json` response
+	ApplicationproblemJSON400 *ApiProblem
+	// ApplicationproblemJSON401 the response for an HTTP 401 `application/problem+json` response
+	ApplicationproblemJSON401 *ApiProblem
+	// ApplicationproblemJSON413 the response for an HTTP 413 `application/problem+json` response
+	ApplicationproblemJSON413 *ApiProblem
+	// ApplicationproblemJSON422 the response for an HTTP 422 `application/problem+json` response
+	ApplicationproblemJSON422 *ApiProblem
+	// ApplicationproblemJSON500 the response for an HTTP 500 `application/problem+json` response
+	ApplicationproblemJSON500 *ApiProblem
+	// ApplicationproblemJSON503 the response for an HTTP 503 `application/problem+json` response
+	ApplicationproblemJSON503 *ApiProblem
+	// ApplicationproblemJSON504 the response for an HTTP 504 `application/problem+json` response
+	ApplicationproblemJSON504 *ApiProblem
+}
+
+// GetJSON200 returns the response for an HTTP 200 `application/json` response
+func (r SizeStageCompactResponse) GetJSON200() *ApiCompactStageResponse {
+	return r.JSON200
+}
+
+// GetApplicationproblemJSON400 returns the response for an HTTP 400 `application/problem+json` response
+func (r SizeStageCompactResponse) GetApplicationproblemJSON400() *ApiProblem {
+	return r.ApplicationproblemJSON400
+}
+
+// GetApplicationproblemJSON401 returns the response for an HTTP 401 `application/problem+json` response
+func (r SizeStageCompactResponse) GetApplicationproblemJSON401() *ApiProblem {
+	return r.ApplicationproblemJSON401
+}
+
+// GetApplicationproblemJSON413 returns the response for an HTTP 413 `application/problem+json` response
+func (r SizeStageCompactResponse) GetApplicationproblemJSON413() *ApiProblem {
+	return r.ApplicationproblemJSON413
+}
+
+// GetApplicationproblemJSON422 returns the response for an HTTP 422 `application/problem+json` response
+func (r SizeStageCompactResponse) GetApplicationproblemJSON422() *ApiProblem {
+	return r.ApplicationproblemJSON422
+}
+
+// GetApplicationproblemJSON500 returns the response for an HTTP 500 `application/problem+json` response
+func (r SizeStageCompactResponse) GetApplicationproblemJSON500() *ApiProblem {
+	return r.ApplicationproblemJSON500
+}
+
+// GetApplicationproblemJSON503 returns the response for an HTTP 503 `application/problem+json` response
+func (r SizeStageCompactResponse) GetApplicationproblemJSON503() *ApiProblem {
+	return r.ApplicationproblemJSON503
+}
+
+// GetApplicationproblemJSON504 returns the response for an HTTP 504 `application/problem+json` response
+func (r SizeStageCompactResponse) GetApplicationproblemJSON504() *ApiProblem {
+	return r.ApplicationproblemJSON504
+}
+
+// GetBody returns the raw response body bytes
+func (r SizeStageCompactResponse) GetBody() []byte {
+	return r.Body
+}
+
+// Status returns HTTPResponse.Status
+func (r SizeStageCompactResponse) Status() string {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.Status
+	}
+	return http.StatusText(0)
+}
+
+// StatusCode returns HTTPResponse.StatusCode
+func (r SizeStageCompactResponse) StatusCode() int {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.StatusCode
+	}
+	return 0
+}
+
+// ContentType is a convenience method to retrieve the Content-Type value from the HTTP response headers
+func (r SizeStageCompactResponse) ContentType() string {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.Header.Get("Content-Type")
+	}
+	return ""
+}
+
 type GetVersionResponse struct {
 	Body         []byte
 	HTTPResponse *http.Response
@@ -4205,7 +4782,7 @@ func (c *ClientWithResponses) SizeStageWithResponse(ctx context.Context, body Si
 
 // SizeStageBatchWithBodyWithResponse Size many stages in one call
 //
-// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own.
+// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own. The answer is streamed item by item as the duties are sized (memory per request stays bounded). With `Accept: application/x-ndjson` the answer is newline-delimited JSON instead: one BatchItem per line, in request order, without the counts. When the compute deadline passes before the first duty is sized the whole batch answers 504; once the answer has begun, each duty not sized by the deadline gets a 504 compute-timeout item.
 //
 // Takes any type of body and a specified content type, and returns a wrapper object for the known response body format(s).
 //
@@ -4220,7 +4797,7 @@ func (c *ClientWithResponses) SizeStageBatchWithBodyWithResponse(ctx context.Con
 
 // SizeStageBatchWithResponse Size many stages in one call
 //
-// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own.
+// Sizes up to 500 duties independently (in parallel) and returns one item per duty in request order: a result, or the problem the duty would have had on its own (its pointers are relative to the duty). A malformed body or a duty of the wrong JSON shape (unknown or missing field, wrong type) rejects the whole batch with a 400 whose pointers start with /duties/INDEX; a duty whose unit strings do not parse gets a 400 item of its own. The answer is streamed item by item as the duties are sized (memory per request stays bounded). With `Accept: application/x-ndjson` the answer is newline-delimited JSON instead: one BatchItem per line, in request order, without the counts. When the compute deadline passes before the first duty is sized the whole batch answers 504; once the answer has begun, each duty not sized by the deadline gets a 504 compute-timeout item.
 //
 // Takes a body of the `application/json` content type, and returns a wrapper object for the known response body format(s).
 //
@@ -4231,6 +4808,66 @@ func (c *ClientWithResponses) SizeStageBatchWithResponse(ctx context.Context, bo
 		return nil, err
 	}
 	return ParseSizeStageBatchResponse(rsp)
+}
+
+// SizeStageBatchCompactWithBodyWithResponse Size many stages: compact answers for machines
+//
+// The same batch as POST /v1/stage/size/batch (same request, limits, streaming, NDJSON with `Accept: application/x-ndjson`, deadline behaviour), each result in the compact view of POST /v1/stage/size/compact.
+//
+// Takes any type of body and a specified content type, and returns a wrapper object for the known response body format(s).
+//
+// Corresponds with POST /v1/stage/size/batch/compact (the `SizeStageBatchCompact` operationId).
+func (c *ClientWithResponses) SizeStageBatchCompactWithBodyWithResponse(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*SizeStageBatchCompactResponse, error) {
+	rsp, err := c.SizeStageBatchCompactWithBody(ctx, contentType, body, reqEditors...)
+	if err != nil {
+		return nil, err
+	}
+	return ParseSizeStageBatchCompactResponse(rsp)
+}
+
+// SizeStageBatchCompactWithResponse Size many stages: compact answers for machines
+//
+// The same batch as POST /v1/stage/size/batch (same request, limits, streaming, NDJSON with `Accept: application/x-ndjson`, deadline behaviour), each result in the compact view of POST /v1/stage/size/compact.
+//
+// Takes a body of the `application/json` content type, and returns a wrapper object for the known response body format(s).
+//
+// Corresponds with POST /v1/stage/size/batch/compact (the `SizeStageBatchCompact` operationId).
+func (c *ClientWithResponses) SizeStageBatchCompactWithResponse(ctx context.Context, body SizeStageBatchCompactJSONRequestBody, reqEditors ...RequestEditorFn) (*SizeStageBatchCompactResponse, error) {
+	rsp, err := c.SizeStageBatchCompact(ctx, body, reqEditors...)
+	if err != nil {
+		return nil, err
+	}
+	return ParseSizeStageBatchCompactResponse(rsp)
+}
+
+// SizeStageCompactWithBodyWithResponse Size one stage: compact answer for machines
+//
+// The same sizing as POST /v1/stage/size (same request, same problems) answered in the compact view: every number, code and the verdict, the provenance's model and input hash, without the limit table's prose and bases, the warning messages, the methods, the defaults, the kij table and the cautions (about half the bytes of the full answer). For process simulators and other machines; a person reading a result should use the full view, whose cautions apply to this answer too.
+//
+// Takes any type of body and a specified content type, and returns a wrapper object for the known response body format(s).
+//
+// Corresponds with POST /v1/stage/size/compact (the `SizeStageCompact` operationId).
+func (c *ClientWithResponses) SizeStageCompactWithBodyWithResponse(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*SizeStageCompactResponse, error) {
+	rsp, err := c.SizeStageCompactWithBody(ctx, contentType, body, reqEditors...)
+	if err != nil {
+		return nil, err
+	}
+	return ParseSizeStageCompactResponse(rsp)
+}
+
+// SizeStageCompactWithResponse Size one stage: compact answer for machines
+//
+// The same sizing as POST /v1/stage/size (same request, same problems) answered in the compact view: every number, code and the verdict, the provenance's model and input hash, without the limit table's prose and bases, the warning messages, the methods, the defaults, the kij table and the cautions (about half the bytes of the full answer). For process simulators and other machines; a person reading a result should use the full view, whose cautions apply to this answer too.
+//
+// Takes a body of the `application/json` content type, and returns a wrapper object for the known response body format(s).
+//
+// Corresponds with POST /v1/stage/size/compact (the `SizeStageCompact` operationId).
+func (c *ClientWithResponses) SizeStageCompactWithResponse(ctx context.Context, body SizeStageCompactJSONRequestBody, reqEditors ...RequestEditorFn) (*SizeStageCompactResponse, error) {
+	rsp, err := c.SizeStageCompact(ctx, body, reqEditors...)
+	if err != nil {
+		return nil, err
+	}
+	return ParseSizeStageCompactResponse(rsp)
 }
 
 // GetVersionWithResponse Build and model version
@@ -4552,6 +5189,149 @@ func ParseSizeStageBatchResponse(rsp *http.Response) (*SizeStageBatchResponse, e
 			return nil, err
 		}
 		response.ApplicationproblemJSON413 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 500:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON500 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 503:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON503 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 504:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON504 = &dest
+
+	}
+
+	return response, nil
+}
+
+// ParseSizeStageBatchCompactResponse parses an HTTP response from a SizeStageBatchCompactWithResponse call
+func ParseSizeStageBatchCompactResponse(rsp *http.Response) (*SizeStageBatchCompactResponse, error) {
+	bodyBytes, err := io.ReadAll(rsp.Body)
+	defer func() { _ = rsp.Body.Close() }()
+	if err != nil {
+		return nil, err
+	}
+
+	response := &SizeStageBatchCompactResponse{
+		Body:         bodyBytes,
+		HTTPResponse: rsp,
+	}
+
+	switch {
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 200:
+		var dest ApiCompactBatchResponse
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.JSON200 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 400:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON400 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 401:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON401 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 413:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON413 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 500:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON500 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 503:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON503 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 504:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON504 = &dest
+
+	}
+
+	return response, nil
+}
+
+// ParseSizeStageCompactResponse parses an HTTP response from a SizeStageCompactWithResponse call
+func ParseSizeStageCompactResponse(rsp *http.Response) (*SizeStageCompactResponse, error) {
+	bodyBytes, err := io.ReadAll(rsp.Body)
+	defer func() { _ = rsp.Body.Close() }()
+	if err != nil {
+		return nil, err
+	}
+
+	response := &SizeStageCompactResponse{
+		Body:         bodyBytes,
+		HTTPResponse: rsp,
+	}
+
+	switch {
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 200:
+		var dest ApiCompactStageResponse
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.JSON200 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 400:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON400 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 401:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON401 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 413:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON413 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 422:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON422 = &dest
 
 	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 500:
 		var dest ApiProblem

@@ -4,7 +4,9 @@ import (
 	"testing"
 
 	"github.com/stretchr/testify/assert"
+	"github.com/stretchr/testify/require"
 
+	"stagewright/physics"
 	"stagewright/physics/cubic"
 )
 
@@ -17,6 +19,49 @@ func BenchmarkResidualNaturalGas(b *testing.B) {
 		if _, err := m.Residual(x, 300, 5e6); err != nil {
 			b.Fatal(err)
 		}
+	}
+}
+
+// BenchmarkFixedResidualNaturalGas: the same state at a composition fixed
+// once (Mixture.At), as the gas models evaluate it.
+func BenchmarkFixedResidualNaturalGas(b *testing.B) {
+	m, x := naturalGas(b, cubic.PengRobinson)
+	f, err := m.At(x)
+	if err != nil {
+		b.Fatal(err)
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := f.Residual(300, 5e6); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// TestFixedIsResidual: at a fixed composition the residual properties are
+// Mixture.Residual's exactly (the same sums in the same order, so equal to
+// the last bit: the answers' bytes depend on it), over gas, liquid and
+// three-root states and both cubics; a bad composition and a bad state are
+// refused as Residual refuses them.
+func TestFixedIsResidual(t *testing.T) {
+	for _, kind := range []cubic.Kind{cubic.PengRobinson, cubic.SoaveRedlichKwong} {
+		m, x := naturalGas(t, kind)
+		f, err := m.At(x)
+		require.NoError(t, err)
+		for _, tt := range []physics.Kelvin{120, 150, 190, 250, 300, 450, 800} {
+			for _, p := range []physics.Pascal{1e4, 1e5, 2e6, 5e6, 2e7} {
+				want, werr := m.Residual(x, tt, p)
+				got, gerr := f.Residual(tt, p)
+				assert.Equal(t, werr, gerr)
+				assert.Equal(t, want, got, "%v K, %v Pa", tt, p)
+			}
+		}
+		_, err = f.Residual(-1, 1e5)
+		assert.Error(t, err)
+		_, err = m.At(x[:len(x)-1])
+		assert.Error(t, err)
+		_, err = m.At([]float64{0.5, 0.6, 0, 0, 0})
+		assert.Error(t, err)
 	}
 }
 

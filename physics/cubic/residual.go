@@ -64,23 +64,25 @@ type Residual struct {
 	DPdV float64
 }
 
-// params returns the mixture a(T) (Pa m6/mol2), da/dT, d²a/dT² and
-// b (m3/mol) of the van der Waals one-fluid rules
+// mixSums are the composition sums of the van der Waals one-fluid rules
 //
 //	a = Σi Σj xi xj (1 − kij) √ai √aj,  b = Σi xi bi.
 //
 // With √ai = qa_i + qb_i √T (linear in √T for the Soave α function),
-// a = α0 + α1 √T + α2 T, so da/dT = α1/(2√T) + α2 and
-// d²a/dT² = −α1/(4 T √T), all exact.
-func (m *Mixture) params(x []float64, t float64) (a, da, d2a, b float64) {
+// a = a0 + a1 √T + a2 T (Pa m6/mol2), so da/dT = a1/(2√T) + a2 and
+// d²a/dT² = −a1/(4 T √T), all exact; b in m3/mol. The sums depend on the
+// composition only, so a model of fixed composition computes them once
+// (Fixed).
+type mixSums struct{ a0, a1, a2, b float64 }
+
+func (m *Mixture) sums(x []float64) (s mixSums) {
 	n := m.n
 	x = x[:n]
-	var a0, a1, a2 float64
 	for i, xi := range x {
 		if xi == 0 {
 			continue
 		}
-		b += xi * m.b[i]
+		s.b += xi * m.b[i]
 		row := m.c[i*n : i*n+n]
 		qa, qb := m.qa[:n], m.qb[:n]
 		var sa, sb float64
@@ -89,15 +91,45 @@ func (m *Mixture) params(x []float64, t float64) (a, da, d2a, b float64) {
 			sa += cx * qa[j]
 			sb += cx * qb[j]
 		}
-		a0 += xi * m.qa[i] * sa
-		a1 += 2 * xi * m.qb[i] * sa
-		a2 += xi * m.qb[i] * sb
+		s.a0 += xi * m.qa[i] * sa
+		s.a1 += 2 * xi * m.qb[i] * sa
+		s.a2 += xi * m.qb[i] * sb
 	}
+	return s
+}
+
+// at returns a, da/dT, d²a/dT² and b at temperature t.
+func (s mixSums) at(t float64) (a, da, d2a, b float64) {
 	u := math.Sqrt(t)
-	a = a0 + a1*u + a2*t
-	da = a1/(2*u) + a2
-	d2a = -a1 / (4 * u * t)
-	return a, da, d2a, b
+	a = s.a0 + s.a1*u + s.a2*t
+	da = s.a1/(2*u) + s.a2
+	d2a = -s.a1 / (4 * u * t)
+	return a, da, d2a, s.b
+}
+
+// Fixed is a Mixture at one composition, its mixing-rule sums computed
+// once (Mixture.At): the residual properties of a state then cost no
+// O(n²) sum. It gives exactly Mixture.Residual's numbers.
+type Fixed struct {
+	m *Mixture
+	s mixSums
+}
+
+// At returns the mixture at composition x (checked as Residual checks it).
+func (m *Mixture) At(x []float64) (*Fixed, error) {
+	if err := m.checkX(x); err != nil {
+		return nil, err
+	}
+	return &Fixed{m: m, s: m.sums(x)}, nil
+}
+
+// Residual is Mixture.Residual at the fixed composition. It does not
+// allocate.
+func (f *Fixed) Residual(t physics.Kelvin, p physics.Pascal) (Residual, error) {
+	if err := f.m.checkTP(float64(t), float64(p)); err != nil {
+		return Residual{}, err
+	}
+	return f.m.residual(f.s, float64(t), float64(p))
 }
 
 // Residual returns the residual properties at temperature t, pressure p
@@ -124,7 +156,12 @@ func (m *Mixture) Residual(x []float64, t physics.Kelvin, p physics.Pascal) (Res
 	if err := m.checkX(x); err != nil {
 		return Residual{}, err
 	}
-	a, da, d2a, b := m.params(x, tt)
+	return m.residual(m.sums(x), tt, pp)
+}
+
+// residual is Residual with checked inputs and the composition's sums.
+func (m *Mixture) residual(s mixSums, tt, pp float64) (Residual, error) {
+	a, da, d2a, b := s.at(tt)
 	const r = physics.UniversalGasConstant
 	rt := r * tt
 	aa := a * pp / (rt * rt)

@@ -108,6 +108,7 @@ type Real struct {
 	comp  Composition
 	ig    idealPart
 	eos   *cubic.Mixture
+	at    *cubic.Fixed // eos at the model's composition x
 	x     []float64
 	pure  bool
 	tcMax float64 // highest Tc of the components present
@@ -151,6 +152,9 @@ func NewReal(kind cubic.Kind, c Composition, kij []BinaryParameter) (Real, error
 	r.pure = nonzero == 1
 	r.eos, err = cubic.NewMixture(kind, tc, pc, om, k)
 	if err != nil {
+		return Real{}, err
+	}
+	if r.at, err = r.eos.At(r.x); err != nil {
 		return Real{}, err
 	}
 	lo, hi := ig.limits()
@@ -325,7 +329,7 @@ func (m Real) state(t physics.Kelvin, p physics.Pascal, stability bool) (State, 
 	if err != nil {
 		return State{}, err
 	}
-	res, err := m.eos.Residual(m.x, t, p)
+	res, err := m.at.Residual(t, p)
 	if err != nil {
 		return State{}, err
 	}

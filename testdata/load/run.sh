@@ -5,11 +5,14 @@
 #   testdata/load/run.sh -d 60          # 60 s per endpoint (the RSS-flat check)
 #   testdata/load/run.sh -d 10 -c 16 -t 2
 #
-# Builds the service, starts it on 127.0.0.1 at a free port, drives GET
-# /healthz (the trivial endpoint) and then POST /v1/stage/size rotating the
-# demo duties testdata/stages/*.in.json, each for the same bounded time,
-# and prints throughput, latency percentiles, errors, the sizing/trivial
-# throughput ratio and the server's resident memory (VmRSS) over the run.
+# Builds the service, starts it on 127.0.0.1 at a free port, and drives,
+# each for the same bounded time: GET /healthz (the trivial endpoint); POST
+# /v1/stage/size rotating the demo duties testdata/stages/*.in.json; the
+# ideal-gas duty alone (kestrel-instrument-air); the five-component
+# Peng-Robinson duty alone (kestrel-fuel-gas-booster); and batches of 500
+# ideal-gas duties on 2 connections. Prints throughput, latency
+# percentiles, errors, the issue 14 ratios to /healthz's throughput in the
+# same run and the server's resident memory (VmRSS) over the run.
 # Installs wrk from Debian (apt-get) when it is missing. Never leaves the
 # loopback interface. A benchmark to report, not a pass/fail test.
 set -euo pipefail
@@ -62,6 +65,9 @@ if ! command -v wrk >/dev/null; then
 fi
 
 duties=("$ROOT"/testdata/stages/*.in.json)
+IDEAL="$ROOT/testdata/stages/kestrel-instrument-air.in.json"
+PR5="$ROOT/testdata/stages/kestrel-fuel-gas-booster.in.json"
+BATCH=500
 if [[ ! -f "${duties[0]}" ]]; then
 	echo "run.sh: no demo duties in testdata/stages" >&2
 	exit 1
@@ -111,30 +117,40 @@ echo "warm-up: 2 s of each endpoint"
 wrk -t"$THREADS" -c"$CONNECTIONS" -d2s -s "$HERE/healthz.lua" "$URL" >/dev/null
 wrk -t"$THREADS" -c"$CONNECTIONS" -d2s -s "$HERE/size.lua" "$URL" -- "${duties[@]}" >/dev/null
 
-run() { # phase, wrk script, extra args
-	local phase=$1 script=$2
-	shift 2
+run() { # phase, connections, wrk script, extra args
+	local phase=$1 conns=$2 script=$3
+	shift 3
 	echo "$phase" >"$WORK/phase"
-	wrk -t"$THREADS" -c"$CONNECTIONS" -d"${DURATION}s" --latency -s "$HERE/$script" "$URL" "$@" >"$WORK/$phase.out"
+	wrk -t"$(min "$THREADS" "$conns")" -c"$conns" -d"${DURATION}s" --latency -s "$HERE/$script" "$URL" "$@" >"$WORK/$phase.out"
 	grep '^RESULT ' "$WORK/$phase.out" | sed "s/^RESULT /$phase /"
 }
+min() { if (($1 < $2)); then echo "$1"; else echo "$2"; fi; }
 field() { grep -o "$2=[0-9.]*" <<<"$1" | cut -d= -f2; }
 
 echo
-trivial=$(run healthz healthz.lua)
-sizing=$(run size size.lua -- "${duties[@]}")
+trivial=$(run healthz "$CONNECTIONS" healthz.lua)
+sizing=$(run size "$CONNECTIONS" size.lua -- "${duties[@]}")
+ideal=$(run ideal "$CONNECTIONS" size.lua -- "$IDEAL")
+pr5=$(run pr5 "$CONNECTIONS" size.lua -- "$PR5")
+batch=$(run batch 2 batch.lua -- "$IDEAL" "$BATCH")
 echo "idle" >"$WORK/phase"
 sleep 1
 
 printf '\n%-8s %10s %9s %9s %9s %9s %8s %8s\n' endpoint "req/s" "p50 ms" "p90 ms" "p99 ms" "max ms" "non-2xx" "sock err"
-for line in "$trivial" "$sizing"; do
+for line in "$trivial" "$sizing" "$ideal" "$pr5" "$batch"; do
 	read -r name _ <<<"$line"
 	sock=$(($(field "$line" connect) + $(field "$line" read) + $(field "$line" write) + $(field "$line" timeout)))
 	printf '%-8s %10s %9s %9s %9s %9s %8s %8s\n' "$name" "$(field "$line" rps)" "$(field "$line" p50_ms)" \
 		"$(field "$line" p90_ms)" "$(field "$line" p99_ms)" "$(field "$line" max_ms)" "$(field "$line" non2xx)" "$sock"
 done
-awk -v s="$(field "$sizing" rps)" -v t="$(field "$trivial" rps)" \
-	'BEGIN { printf "\nsizing / trivial throughput: %.1f %% (target >= 70 %%)\n", 100 * s / t }'
+echo "(batch: one request is $BATCH ideal-gas duties, 2 connections)"
+awk -v s="$(field "$sizing" rps)" -v t="$(field "$trivial" rps)" -v i="$(field "$ideal" rps)" -v p="$(field "$pr5" rps)" \
+	-v b="$(field "$batch" rps)" -v n="$BATCH" 'BEGIN {
+	printf "\nratios to /healthz req/s in this run:\n"
+	printf "  ideal-gas sizing / healthz:       %.3f (target >= 0.35)\n", i / t
+	printf "  5-component PR sizing / healthz:  %.3f (target >= 0.25)\n", p / t
+	printf "  batch duties/s / healthz:         %.3f (target >= 0.6; %.0f duties/s)\n", b * n / t, b * n
+	printf "  demo rotation / healthz:          %.3f\n", s / t }'
 awk -v p="$(field "$sizing" p99_ms)" 'BEGIN { printf "sizing p99: %.2f ms (target <= 5 ms at 32 connections)\n", p }'
 
 echo
