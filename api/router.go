@@ -17,6 +17,7 @@ import (
 type Services interface {
 	StageSizer
 	GasPropertyService
+	MachineService
 }
 
 // Options configure the router. The zero value of every field but Spec
@@ -122,13 +123,17 @@ func NewRouter(svc Services, opts Options) (*gin.Engine, error) {
 	if opts.ComputeTimeout > 0 {
 		v1.Use(computeDeadline(opts.ComputeTimeout))
 	}
-	dec := newRequestDecoder(StageRequest{}, BatchRequest{}, PropertiesRequest{})
+	dec := newRequestDecoder(StageRequest{}, BatchRequest{}, PropertiesRequest{}, RateRequest{}, RateBatchRequest{}, MapRequest{})
 	st := stageHandler{svc: svc, decoder: dec, log: log}
 	v1.POST("/stage/size", st.size)
 	v1.POST("/stage/size/batch", st.sizeBatch)
 	gh := gasHandler{svc: svc, decoder: dec, log: log}
 	v1.POST("/gas/properties", gh.properties)
 	v1.GET("/gas/components", gh.components)
+	mh := machineHandler{svc: svc, decoder: dec, log: log}
+	v1.POST("/machine/rate", mh.rate)
+	v1.POST("/machine/rate/batch", mh.rateBatch)
+	v1.POST("/machine/map", mh.mapChart)
 	return r, nil
 }
 
