@@ -102,7 +102,9 @@ func (s *Service) cool(c MachineCooler, g GasInput, m gas.Model, in gas.State, m
 		}
 		ysat := float64(psat) / p2
 		if ysat < 1 && x[iw] > ysat {
-			keep := ysat / (1 - ysat) * (1 - x[iw]) // saturated: n_w/(n_dry + n_w) = ysat
+			// Saturated: n_w/(n_dry + n_w) = ysat, less 1e-9 so that the
+			// next stage's dew-point test does not find liquid by rounding.
+			keep := ysat / (1 - ysat) * (1 - x[iw]) * (1 - 1e-9)
 			removed[iw] = x[iw] - keep
 			left[iw] = keep
 			hfg, err := water.VaporizationEnthalpy(physics.Kelvin(t2))
