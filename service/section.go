@@ -190,7 +190,7 @@ func (s *Service) SizeSection(ctx context.Context, d SectionDuty) (SectionResult
 	if d.StageCount == nil {
 		res.StageCountBasis = "chosen"
 		prov.Methods = append(prov.Methods, Method{Subject: "stage count",
-			Name: fmt.Sprintf("the least stage count for which every stage stays inside its levels (tip speed of its construction, stage pressure ratio, head per closed impeller, discharge temperature, flow-coefficient band): %d (stages tried: levels missed %s)",
+			Name: fmt.Sprintf("the least stage count for which every stage stays inside its levels (no hard limit passed: tip speed of its construction, discharge temperature, Mach numbers ...; no warning level passed of the closed-impeller pressure ratio and head and of the flow-coefficient band): %d (stage counts tried: levels missed %s)",
 				res.StageCount, joinComma(tried)),
 			Source: "levels of physics/limits (common practice, each with its basis in limits[])"})
 		if bestMisses > 0 {
@@ -617,26 +617,25 @@ func stageErr(err error, k int) error {
 	return err
 }
 
-// countRules are the limit rules the stage count is chosen by.
-var countRules = [...]string{"tip-speed", "stage-pressure-ratio", "impeller-head", "discharge-temperature", "flow-coefficient-low", "flow-coefficient-high"}
+// warningRules are the rules without a hard limit that still bound the
+// stage count at their warning level: the pressure ratio and head of a
+// closed impeller and the flow-coefficient band.
+var warningRules = [...]string{"stage-pressure-ratio", "impeller-head", "flow-coefficient-low", "flow-coefficient-high"}
 
-// levelMisses lists the levels the stages of res miss among countRules: a
-// rule with a hard limit is missed past the limit, a rule with only a
-// warning level (stage pressure ratio and head of a closed impeller, the
-// flow-coefficient band) past that level.
+// levelMisses lists the levels the stages of res miss: every rule with a
+// hard limit (tip speed of the construction, discharge temperature, the
+// Mach numbers, ...) past that limit, and the warningRules past their
+// warning level.
 func levelMisses(d SectionDuty, res *SectionResult) []string {
 	var out []string
 	for k, st := range res.Stages {
 		for _, a := range st.Assessments {
-			counted := false
-			for _, id := range countRules {
-				counted = counted || a.Rule.ID == id
-			}
-			if !counted {
-				continue
+			soft := false
+			for _, id := range warningRules {
+				soft = soft || a.Rule.ID == id
 			}
 			hard := !math.IsNaN(a.Rule.Limit)
-			if (hard && a.Severity == limits.Limit) || (!hard && a.Severity.Rank() >= limits.Warning.Rank()) {
+			if (hard && a.Severity == limits.Limit) || (soft && !hard && a.Severity.Rank() >= limits.Warning.Rank()) {
 				out = append(out, fmt.Sprintf("stage %d: %s", k+1, a.Rule.ID))
 			}
 		}
