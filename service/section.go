@@ -91,8 +91,6 @@ type SectionResult struct {
 	Split      string
 	Provenance Provenance
 	Cautions   []string
-
-	stageGas []GasInput // the gas entering each stage
 }
 
 // SectionWarning is a warning of the section (Stage 0) or of one stage.
@@ -581,11 +579,10 @@ func (s *Service) sizeStages(ctx context.Context, d SectionDuty, ic Intercooling
 		delete(sd.LimitOverrides, "driver-margin")
 		st, err := s.SizeStage(ctx, sd)
 		if err != nil {
-			return res, stageErr(err, k+1)
+			return res, sectionStageErr(err, k+1)
 		}
 		res.Stages = append(res.Stages, st)
-		res.stageGas = append(res.stageGas, sd.Gas)
-		if pl.cooler != nil {
+			if pl.cooler != nil {
 			// The cooler again from the stage's discharge as sized (the
 			// outlet depends only on its temperature and pressure; the duty
 			// on the inlet too).
@@ -605,9 +602,9 @@ func (s *Service) sizeStages(ctx context.Context, d SectionDuty, ic Intercooling
 	return res, nil
 }
 
-// stageErr keeps an error's field (it is the section duty's field too)
+// sectionStageErr keeps an error's field (it is the section duty's field too)
 // and says which stage it came from.
-func stageErr(err error, k int) error {
+func sectionStageErr(err error, k int) error {
 	var ie *InputError
 	if errors.As(err, &ie) {
 		cp := *ie
@@ -710,9 +707,11 @@ func (s *Service) sectionTotals(d SectionDuty, arr string, ic Intercooling, res 
 	return nil
 }
 
-// sectionMachine describes the sized section as built.
+// sectionMachine describes the sized section as built: each stage as
+// SizeStage answers it (machineOf), the coolers, the first stage's speed
+// range, the section's driver and mechanical efficiency.
 func sectionMachine(d SectionDuty, arr string, ic Intercooling, res *SectionResult) Machine {
-	m := Machine{Arrangement: arr, LimitOverrides: d.LimitOverrides}
+	m := Machine{Arrangement: arr, LimitOverrides: d.LimitOverrides, SpeedRange: res.Stages[0].Machine.SpeedRange}
 	if len(res.Stages) == 1 {
 		m.Arrangement = "single"
 	}
@@ -720,61 +719,13 @@ func sectionMachine(d SectionDuty, arr string, ic Intercooling, res *SectionResu
 	m.MechanicalEfficiency = &eta
 	rating := res.Power.DriverRating
 	m.Driver = &MachineDriver{Rating: &rating}
-	for k, st := range res.Stages {
-		sd := d.StageDuty
-		gasIn := d.Gas
-		if k > 0 {
-			gasIn = res.stageGas[k]
-		}
-		m.Stages = append(m.Stages, sectionMachineStage(sd, st, gasIn))
+	for _, st := range res.Stages {
+		m.Stages = append(m.Stages, st.Machine.Stages[0])
 	}
 	for _, c := range res.Coolers {
-		mc := coolerAfter(ic, c.AfterStage, len(res.Stages))
-		m.Coolers = append(m.Coolers, *mc)
+		m.Coolers = append(m.Coolers, *coolerAfter(ic, c.AfterStage, len(res.Stages)))
 	}
 	return m
-}
-
-// sectionMachineStage is one sized stage as built.
-func sectionMachineStage(d StageDuty, st StageResult, g GasInput) MachineStage {
-	geo, v, c := st.Sizing.Geometry, st.Sizing.Velocities, st.Sizing.Coefficients
-	ms := MachineStage{TipDiameter: float64(geo.TipDiameter), ExitWidth: float64(geo.ExitWidth),
-		BladeExitAngle: st.Impeller.BladeExitAngle, ExitBlockage: st.ExitBlockage, PowerInputFactor: st.Impeller.PowerInputFactor,
-		Construction: d.Impeller.Construction, Diffuser: Diffuser{Type: d.Diffuser}}
-	if ms.Construction == "" {
-		ms.Construction = string(limits.DefaultBuild)
-	}
-	if ms.Diffuser.Type == "" {
-		ms.Diffuser.Type = "vaneless"
-	}
-	if st.BladeCount > 0 {
-		ms.BladeCount = st.BladeCount
-		ms.SlipModel = d.Impeller.SlipModel
-		if ms.SlipModel == "" {
-			ms.SlipModel = "wiesner"
-		}
-	} else {
-		sf := st.SlipFactor
-		ms.SlipFactor = &sf
-	}
-	ms.Inlet.Type = string(geo.Inlet)
-	dia, width, hub := float64(geo.InletDiameter), float64(geo.InletWidth), float64(geo.EyeHubDiameter)
-	if geo.Inlet == "axial-eye" {
-		ms.Inlet.EyeTipDiameter, ms.Inlet.EyeHubDiameter = &dia, &hub
-	} else {
-		ms.Inlet.Diameter, ms.Inlet.Width = &dia, &width
-	}
-	if st.PrewhirlAngle != 0 {
-		pa := st.PrewhirlAngle
-		ms.Inlet.PrewhirlAngle = &pa
-	}
-	p := st.Path
-	ms.Design = DesignPoint{Speed: st.Speed, VolumeFlow: st.SuctionVolumeFlow, MassFlow: st.MassFlow,
-		FlowCoefficient: c.FlowCoefficient, WorkCoefficient: c.WorkCoefficient, PolytropicEfficiency: p.PolytropicEfficiency,
-		TipMach: v.MachineMach, PolytropicHead: float64(p.PolytropicHead),
-		SuctionPressure: float64(p.Suction.Pressure), SuctionTemperature: float64(p.Suction.Temperature),
-		DischargePressure: float64(p.Discharge.Pressure), Gas: g}
-	return ms
 }
 
 // sectionCautions are the first stage's cautions with the section's own.
