@@ -345,7 +345,7 @@ func passageText(p string) string {
 // with the section's cooler model (cool: outlet temperature, pressure
 // drop, condensate removed by a flash at the outlet).
 func (s *Service) coolBetween(c MachineCooler, g GasInput, m gas.Model, in gas.State, mdot float64, k int) (CoolerRating, gas.State, float64, GasInput, gas.Model, error) {
-	out, err := s.cool(c, g, m, in, mdot)
+	out, err := s.coolWith(c, g, m, in, mdot, false) // its warnings are not reported by a rating
 	if err != nil {
 		var ie *InputError
 		if errors.As(err, &ie) {

@@ -424,7 +424,7 @@ func (s *Service) splitEqualHead(ctx context.Context, b sectionBase, ic Intercoo
 				if err != nil {
 					return nil, 0, fieldErr("discharge_pressure", fmt.Errorf("stage %d: %w", k, err))
 				}
-				out, err := s.cool(*c, g, m, comp.Discharge, mdot)
+				out, err := s.coolWith(*c, g, m, comp.Discharge, mdot, false)
 				if err != nil {
 					return nil, 0, prefixField(err, "intercooling.")
 				}
