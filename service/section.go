@@ -205,6 +205,12 @@ func (s *Service) SizeSection(ctx context.Context, d SectionDuty) (SectionResult
 			Source: "IAPWS R7-97 (2007) region 4; Rachford & Rice, J. Pet. Technol. 4(10) (1952); Michelsen & Mollerup, Thermodynamic Models (2007), ch. 10; Clausius-Clapeyron for the latent heat of water"})
 	}
 	res.Provenance.ModelVersion, res.Provenance.ServiceVersion, res.Provenance.InputHash = prov.ModelVersion, prov.ServiceVersion, prov.InputHash
+	// Each stage's duty holds computed pressures and temperatures, whose
+	// last bits differ between platforms: the stages carry the section
+	// duty's hash instead.
+	for i := range res.Stages {
+		res.Stages[i].Provenance.InputHash = prov.InputHash
+	}
 	res.Provenance.GasModel = prov.GasModel
 	res.Provenance.Methods = append(prov.Methods, res.Provenance.Methods...)
 	res.Provenance.Defaults = append(prov.Defaults, res.Provenance.Defaults...)

@@ -2177,7 +2177,8 @@ type ApiSectionResponse struct {
 	StageCountBasis ApiSectionResponseStageCountBasis `json:"stage_count_basis"`
 
 	// Stages Stages are the full stage answers in flow order, each with its own
-	// suction state, mass flow and speed.
+	// suction state, mass flow and speed (their provenance.input_hash is
+	// the section duty's).
 	Stages []ApiStageResponse `json:"stages"`
 
 	// Verdict Verdict follows the worst warning of the section and its stages.
