@@ -19,16 +19,6 @@ func numOrNil(v *float64) *Quantity {
 
 func pf(v float64) *float64 { return &v }
 
-// gasSpecOf is the inverse of gasInputOf.
-func gasSpecOf(g service.GasInput) GasSpec {
-	out := GasSpec{Model: g.Model, Cp: g.Cp, Gamma: g.Gamma, Composition: g.Composition, CompositionBasis: g.CompositionBasis,
-		RelativeHumidity: g.RelativeHumidity, Service: g.Service}
-	for _, k := range g.Interactions {
-		out.BinaryInteraction = append(out.BinaryInteraction, BinaryInteractionSpec{Pair: []string{k.A, k.B}, Kij: pf(k.Kij)})
-	}
-	return out
-}
-
 // machineSpecOf renders a service machine in the request shape (numbers in SI).
 func machineSpecOf(m service.Machine) MachineSpec {
 	out := MachineSpec{Name: m.Name, Arrangement: m.Arrangement, MechanicalEfficiency: m.MechanicalEfficiency, Stages: []MachineStageSpec{}}

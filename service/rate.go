@@ -343,12 +343,24 @@ func passageText(p string) string {
 	return "sonic flow in the inducer throat"
 }
 
-// coolBetween takes the gas through the cooler after stage k (0-based).
-// Intercoolers need the cooler model of the section work; until it is
-// there a machine with an intercooler is refused.
+// coolBetween takes the gas through the cooler after stage k (0-based)
+// with the section's cooler model (cool: outlet temperature, pressure
+// drop, condensate removed by a flash at the outlet).
 func (s *Service) coolBetween(c MachineCooler, g GasInput, m gas.Model, in gas.State, mdot float64, k int) (CoolerRating, gas.State, float64, GasInput, gas.Model, error) {
-	return CoolerRating{}, in, mdot, g, m, fieldErr("machine.coolers", reason("coolers",
-		"rating through intercoolers is not available yet in this build: rate each stage's section separately", float64(c.AfterStage)))
+	out, err := s.coolWith(c, g, m, in, mdot, false) // its warnings are not reported by a rating
+	if err != nil {
+		var ie *InputError
+		if errors.As(err, &ie) {
+			cp := *ie
+			cp.Field = "machine.coolers"
+			cp.Err = fmt.Errorf("the cooler after stage %d (%s): %w", c.AfterStage, ie.Field, ie.Err)
+			return CoolerRating{}, in, mdot, g, m, &cp
+		}
+		return CoolerRating{}, in, mdot, g, m, err
+	}
+	cr := CoolerRating{OutletPressure: float64(out.State.Pressure), OutletTemperature: float64(out.State.Temperature),
+		Condensate: out.Condensate, Duty: out.Duty}
+	return cr, out.State, out.MassFlow, out.Gas, out.Model, nil
 }
 
 // fillRating sums the stacked stages into the rating.

@@ -282,19 +282,19 @@ func (e ApiMachineInletSpecType) Valid() bool {
 
 // Defines values for ApiMachineSpecArrangement.
 const (
-	Geared ApiMachineSpecArrangement = "geared"
-	Inline ApiMachineSpecArrangement = "inline"
-	Single ApiMachineSpecArrangement = "single"
+	ApiMachineSpecArrangementGeared ApiMachineSpecArrangement = "geared"
+	ApiMachineSpecArrangementInline ApiMachineSpecArrangement = "inline"
+	ApiMachineSpecArrangementSingle ApiMachineSpecArrangement = "single"
 )
 
 // Valid indicates whether the value is a known member of the ApiMachineSpecArrangement enum.
 func (e ApiMachineSpecArrangement) Valid() bool {
 	switch e {
-	case Geared:
+	case ApiMachineSpecArrangementGeared:
 		return true
-	case Inline:
+	case ApiMachineSpecArrangementInline:
 		return true
-	case Single:
+	case ApiMachineSpecArrangementSingle:
 		return true
 	default:
 		return false
@@ -484,6 +484,105 @@ func (e ApiRateResponseVerdict) Valid() bool {
 	case ApiRateResponseVerdictPastWarning:
 		return true
 	case ApiRateResponseVerdictWithinLimits:
+		return true
+	default:
+		return false
+	}
+}
+
+// Defines values for ApiSectionRequestArrangement.
+const (
+	ApiSectionRequestArrangementGeared ApiSectionRequestArrangement = "geared"
+	ApiSectionRequestArrangementInline ApiSectionRequestArrangement = "inline"
+)
+
+// Valid indicates whether the value is a known member of the ApiSectionRequestArrangement enum.
+func (e ApiSectionRequestArrangement) Valid() bool {
+	switch e {
+	case ApiSectionRequestArrangementGeared:
+		return true
+	case ApiSectionRequestArrangementInline:
+		return true
+	default:
+		return false
+	}
+}
+
+// Defines values for ApiSectionResponseArrangement.
+const (
+	ApiSectionResponseArrangementGeared ApiSectionResponseArrangement = "geared"
+	ApiSectionResponseArrangementInline ApiSectionResponseArrangement = "inline"
+)
+
+// Valid indicates whether the value is a known member of the ApiSectionResponseArrangement enum.
+func (e ApiSectionResponseArrangement) Valid() bool {
+	switch e {
+	case ApiSectionResponseArrangementGeared:
+		return true
+	case ApiSectionResponseArrangementInline:
+		return true
+	default:
+		return false
+	}
+}
+
+// Defines values for ApiSectionResponseStageCountBasis.
+const (
+	ApiSectionResponseStageCountBasisChosen ApiSectionResponseStageCountBasis = "chosen"
+	ApiSectionResponseStageCountBasisGiven  ApiSectionResponseStageCountBasis = "given"
+)
+
+// Valid indicates whether the value is a known member of the ApiSectionResponseStageCountBasis enum.
+func (e ApiSectionResponseStageCountBasis) Valid() bool {
+	switch e {
+	case ApiSectionResponseStageCountBasisChosen:
+		return true
+	case ApiSectionResponseStageCountBasisGiven:
+		return true
+	default:
+		return false
+	}
+}
+
+// Defines values for ApiSectionResponseVerdict.
+const (
+	ApiSectionResponseVerdictNearLimits   ApiSectionResponseVerdict = "near-limits"
+	ApiSectionResponseVerdictPastLimit    ApiSectionResponseVerdict = "past-limit"
+	ApiSectionResponseVerdictPastWarning  ApiSectionResponseVerdict = "past-warning"
+	ApiSectionResponseVerdictWithinLimits ApiSectionResponseVerdict = "within-limits"
+)
+
+// Valid indicates whether the value is a known member of the ApiSectionResponseVerdict enum.
+func (e ApiSectionResponseVerdict) Valid() bool {
+	switch e {
+	case ApiSectionResponseVerdictNearLimits:
+		return true
+	case ApiSectionResponseVerdictPastLimit:
+		return true
+	case ApiSectionResponseVerdictPastWarning:
+		return true
+	case ApiSectionResponseVerdictWithinLimits:
+		return true
+	default:
+		return false
+	}
+}
+
+// Defines values for ApiSectionWarningOutSeverity.
+const (
+	ApiSectionWarningOutSeverityLimit   ApiSectionWarningOutSeverity = "limit"
+	ApiSectionWarningOutSeverityNotice  ApiSectionWarningOutSeverity = "notice"
+	ApiSectionWarningOutSeverityWarning ApiSectionWarningOutSeverity = "warning"
+)
+
+// Valid indicates whether the value is a known member of the ApiSectionWarningOutSeverity enum.
+func (e ApiSectionWarningOutSeverity) Valid() bool {
+	switch e {
+	case ApiSectionWarningOutSeverityLimit:
+		return true
+	case ApiSectionWarningOutSeverityNotice:
+		return true
+	case ApiSectionWarningOutSeverityWarning:
 		return true
 	default:
 		return false
@@ -1279,6 +1378,75 @@ type ApiInletSpec_MeridionalVelocity struct {
 //
 // Example: axial-eye
 type ApiInletSpecType string
+
+// ApiIntercoolingSpec defines model for api.IntercoolingSpec.
+type ApiIntercoolingSpec struct {
+	// AfterStages AfterStages lists the stages (1-based) followed by a cooler; default
+	// every stage but the last for "geared", none for "inline"; [] for none.
+	//
+	// Example: [1,2]
+	AfterStages *[]int `json:"after_stages,omitempty"`
+
+	// Approach Approach is the outlet temperature above the coolant temperature, K
+	// (with coolant_temperature, instead of outlet_temperature).
+	//
+	// Example: 10
+	Approach *float64 `json:"approach,omitempty"`
+
+	// CoolantTemperature CoolantTemperature is the coolant inlet temperature, K (or "30 degC").
+	CoolantTemperature *ApiIntercoolingSpec_CoolantTemperature `json:"coolant_temperature,omitempty"`
+
+	// OutletTemperature OutletTemperature is the gas temperature leaving every cooler, K (or
+	// "40 degC"); default the section's suction temperature.
+	OutletTemperature *ApiIntercoolingSpec_OutletTemperature `json:"outlet_temperature,omitempty"`
+
+	// PressureDrop PressureDrop is the gas pressure drop across each cooler, Pa (or
+	// "0.2 bar"); default 0.
+	PressureDrop *ApiIntercoolingSpec_PressureDrop `json:"pressure_drop,omitempty"`
+}
+
+// ApiIntercoolingSpecCoolantTemperature0 CoolantTemperature is the coolant inlet temperature, K (or "30 degC").
+//
+// Example: 303.15
+type ApiIntercoolingSpecCoolantTemperature0 = float64
+
+// ApiIntercoolingSpecCoolantTemperature1 a temperature with its unit, e.g. "35 degC", "95 degF", "308.15 K"
+type ApiIntercoolingSpecCoolantTemperature1 = string
+
+// ApiIntercoolingSpec_CoolantTemperature CoolantTemperature is the coolant inlet temperature, K (or "30 degC").
+type ApiIntercoolingSpec_CoolantTemperature struct {
+	union json.RawMessage
+}
+
+// ApiIntercoolingSpecOutletTemperature0 OutletTemperature is the gas temperature leaving every cooler, K (or
+// "40 degC"); default the section's suction temperature.
+//
+// Example: 313.15
+type ApiIntercoolingSpecOutletTemperature0 = float64
+
+// ApiIntercoolingSpecOutletTemperature1 a temperature with its unit, e.g. "35 degC", "95 degF", "308.15 K"
+type ApiIntercoolingSpecOutletTemperature1 = string
+
+// ApiIntercoolingSpec_OutletTemperature OutletTemperature is the gas temperature leaving every cooler, K (or
+// "40 degC"); default the section's suction temperature.
+type ApiIntercoolingSpec_OutletTemperature struct {
+	union json.RawMessage
+}
+
+// ApiIntercoolingSpecPressureDrop0 PressureDrop is the gas pressure drop across each cooler, Pa (or
+// "0.2 bar"); default 0.
+//
+// Example: 20000
+type ApiIntercoolingSpecPressureDrop0 = float64
+
+// ApiIntercoolingSpecPressureDrop1 a pressure-difference with its unit, e.g. "1 unit"
+type ApiIntercoolingSpecPressureDrop1 = string
+
+// ApiIntercoolingSpec_PressureDrop PressureDrop is the gas pressure drop across each cooler, Pa (or
+// "0.2 bar"); default 0.
+type ApiIntercoolingSpec_PressureDrop struct {
+	union json.RawMessage
+}
 
 // ApiLevelOverrideSpec defines model for api.LevelOverrideSpec.
 type ApiLevelOverrideSpec struct {
@@ -2333,6 +2501,303 @@ type ApiRatingVelocitiesOut struct {
 	TipSpeed    float64 `json:"tip_speed"`
 }
 
+// ApiSectionCoolerOut defines model for api.SectionCoolerOut.
+type ApiSectionCoolerOut struct {
+	// AfterStage AfterStage is the stage (1-based) the cooler follows.
+	//
+	// Example: 1
+	AfterStage int `json:"after_stage"`
+
+	// Condensate Condensate is the liquid removed at the outlet, kg/s.
+	//
+	// Example: 0.02
+	Condensate float64 `json:"condensate"`
+
+	// Duty Duty is the heat taken out, W (sensible and latent).
+	//
+	// Example: 420000
+	Duty float64 `json:"duty"`
+
+	// Inlet Inlet is the gas entering (the stage's discharge).
+	Inlet ApiSectionStateOut `json:"inlet"`
+
+	// Outlet Outlet is the gas leaving.
+	Outlet ApiSectionStateOut `json:"outlet"`
+}
+
+// ApiSectionHeadOut defines model for api.SectionHeadOut.
+type ApiSectionHeadOut struct {
+	// Polytropic Polytropic is the sum of the stages' polytropic heads, J/kg.
+	//
+	// Example: 210000
+	Polytropic float64 `json:"polytropic"`
+}
+
+// ApiSectionRequest defines model for api.SectionRequest.
+type ApiSectionRequest struct {
+	// Arrangement Arrangement is "geared" (default: each stage on its own pinion speed)
+	// or "inline" (one shaft speed for every impeller).
+	//
+	// Example: geared
+	Arrangement *ApiSectionRequestArrangement `json:"arrangement,omitempty"`
+	Diffuser    *ApiDiffuserSpec              `json:"diffuser,omitempty"`
+
+	// DischargePressure DischargePressure is the section's discharge total pressure, Pa
+	// absolute (or a string with a unit). Give it or pressure_ratio, not both.
+	DischargePressure *ApiSectionRequest_DischargePressure `json:"discharge_pressure,omitempty"`
+
+	// Driver Driver is the section's driver.
+	Driver *ApiDriverSpec `json:"driver,omitempty"`
+
+	// Efficiency Efficiency is every stage's total-to-total efficiency; leave it out to
+	// have each stage's polytropic efficiency estimated.
+	Efficiency *ApiEfficiencySpec `json:"efficiency,omitempty"`
+	Flow       ApiFlowSpec        `json:"flow"`
+	Gas        ApiGasSpec         `json:"gas"`
+
+	// Impeller Impeller is the blading and inlet of every stage.
+	Impeller *ApiImpellerSpec `json:"impeller,omitempty"`
+
+	// Intercooling Intercooling places and sets the coolers between stages.
+	Intercooling *ApiIntercoolingSpec `json:"intercooling,omitempty"`
+
+	// LimitOverrides LimitOverrides replaces the levels of limit rules for every stage.
+	LimitOverrides *map[string]ApiLevelOverrideSpec `json:"limit_overrides,omitempty"`
+
+	// MechanicalEfficiency MechanicalEfficiency is gas power over shaft power of the whole
+	// section (one shaft or bull gear); default 0.98.
+	//
+	// Example: 0.98
+	MechanicalEfficiency *float64 `json:"mechanical_efficiency,omitempty"`
+
+	// MechanicalLosses MechanicalLosses are the section's bearing, seal and gear losses, W, counted once.
+	MechanicalLosses *ApiSectionRequest_MechanicalLosses `json:"mechanical_losses,omitempty"`
+	Options          *ApiOptionsSpec                     `json:"options,omitempty"`
+
+	// PressureRatio PressureRatio is the section's overall total pressure ratio (> 1).
+	//
+	// Example: 8
+	PressureRatio *float64 `json:"pressure_ratio,omitempty"`
+
+	// Speed Speed is the shaft speed of an "inline" section, or of every stage of
+	// a "geared" one, rev/min; leave it out to have each stage's (geared) or
+	// the shaft's (inline) speed chosen.
+	Speed *ApiSectionRequest_Speed `json:"speed,omitempty"`
+
+	// SpeedStep SpeedStep rounds a chosen speed to a multiple of this many rev/min.
+	//
+	// Example: 50
+	SpeedStep *float64 `json:"speed_step,omitempty"`
+
+	// SpeedTarget SpeedTarget chooses each stage's speed (geared) or the stages' own
+	// speeds whose geometric mean is the shaft speed (inline).
+	SpeedTarget *ApiSpeedTargetSpec `json:"speed_target,omitempty"`
+
+	// StageCount StageCount is the number of stages (1 to 12); leave it out to have the
+	// least count chosen for which every stage stays inside its levels.
+	//
+	// Example: 3
+	StageCount *int           `json:"stage_count,omitempty"`
+	Suction    ApiSuctionSpec `json:"suction"`
+
+	// TipDiameter TipDiameter is one tip diameter for every stage of a "geared" section, m.
+	TipDiameter *ApiSectionRequest_TipDiameter `json:"tip_diameter,omitempty"`
+}
+
+// ApiSectionRequestArrangement Arrangement is "geared" (default: each stage on its own pinion speed)
+// or "inline" (one shaft speed for every impeller).
+//
+// Example: geared
+type ApiSectionRequestArrangement string
+
+// ApiSectionRequestDischargePressure0 DischargePressure is the section's discharge total pressure, Pa
+// absolute (or a string with a unit). Give it or pressure_ratio, not both.
+//
+// Example: 900000
+type ApiSectionRequestDischargePressure0 = float64
+
+// ApiSectionRequestDischargePressure1 a pressure with its unit, e.g. "14.7 psia", "1.2 bara", "0.3 barg"
+type ApiSectionRequestDischargePressure1 = string
+
+// ApiSectionRequest_DischargePressure DischargePressure is the section's discharge total pressure, Pa
+// absolute (or a string with a unit). Give it or pressure_ratio, not both.
+type ApiSectionRequest_DischargePressure struct {
+	union json.RawMessage
+}
+
+// ApiSectionRequestMechanicalLosses0 MechanicalLosses are the section's bearing, seal and gear losses, W, counted once.
+//
+// Example: 40000
+type ApiSectionRequestMechanicalLosses0 = float64
+
+// ApiSectionRequestMechanicalLosses1 a power with its unit, e.g. "1 unit"
+type ApiSectionRequestMechanicalLosses1 = string
+
+// ApiSectionRequest_MechanicalLosses MechanicalLosses are the section's bearing, seal and gear losses, W, counted once.
+type ApiSectionRequest_MechanicalLosses struct {
+	union json.RawMessage
+}
+
+// ApiSectionRequestSpeed0 Speed is the shaft speed of an "inline" section, or of every stage of
+// a "geared" one, rev/min; leave it out to have each stage's (geared) or
+// the shaft's (inline) speed chosen.
+//
+// Example: 11000
+type ApiSectionRequestSpeed0 = float64
+
+// ApiSectionRequestSpeed1 a speed with its unit, e.g. "21000 rpm", "2200 rad/s"
+type ApiSectionRequestSpeed1 = string
+
+// ApiSectionRequest_Speed Speed is the shaft speed of an "inline" section, or of every stage of
+// a "geared" one, rev/min; leave it out to have each stage's (geared) or
+// the shaft's (inline) speed chosen.
+type ApiSectionRequest_Speed struct {
+	union json.RawMessage
+}
+
+// ApiSectionRequestTipDiameter0 TipDiameter is one tip diameter for every stage of a "geared" section, m.
+//
+// Example: 0.42
+type ApiSectionRequestTipDiameter0 = float64
+
+// ApiSectionRequestTipDiameter1 a length with its unit, e.g. "1 unit"
+type ApiSectionRequestTipDiameter1 = string
+
+// ApiSectionRequest_TipDiameter TipDiameter is one tip diameter for every stage of a "geared" section, m.
+type ApiSectionRequest_TipDiameter struct {
+	union json.RawMessage
+}
+
+// ApiSectionResponse defines model for api.SectionResponse.
+type ApiSectionResponse struct {
+	// Arrangement Arrangement is "geared" or "inline".
+	//
+	// Example: geared
+	Arrangement ApiSectionResponseArrangement `json:"arrangement"`
+
+	// Cautions Cautions are short sentences for people; they defer to the
+	// manufacturer, the standards, local codes and licensed practice.
+	Cautions []string `json:"cautions"`
+
+	// Coolers Coolers are the intercoolers.
+	Coolers []ApiSectionCoolerOut `json:"coolers"`
+
+	// Discharge Discharge is the section's discharge state.
+	Discharge ApiSectionStateOut `json:"discharge"`
+
+	// Head Head is the sum of the stages' polytropic heads.
+	Head ApiSectionHeadOut `json:"head"`
+
+	// Machine Machine is the section as built, for /v1/machine/rate, /map and /check.
+	Machine ApiMachineSpec `json:"machine"`
+
+	// Power Power is the section total: gas power of the stages, shaft power with
+	// the mechanical losses counted once for the shaft or bull gear.
+	Power      ApiPowerOut      `json:"power"`
+	Provenance ApiProvenanceOut `json:"provenance"`
+
+	// Speed Speed is the common shaft speed of an "inline" section, rev/min
+	// (absent for "geared": each stage has its own).
+	//
+	// Example: 11000
+	Speed *float64 `json:"speed,omitempty"`
+
+	// Split Split says how the pressure rise is shared among the stages.
+	Split string `json:"split"`
+
+	// StageCount StageCount is the number of stages.
+	//
+	// Example: 3
+	StageCount int `json:"stage_count"`
+
+	// StageCountBasis StageCountBasis is "given" or "chosen" (the least count inside every stage's levels).
+	//
+	// Example: chosen
+	StageCountBasis ApiSectionResponseStageCountBasis `json:"stage_count_basis"`
+
+	// Stages Stages are the full stage answers in flow order, each with its own
+	// suction state, mass flow and speed (their provenance.input_hash is
+	// the section duty's).
+	Stages []ApiStageResponse `json:"stages"`
+
+	// Verdict Verdict follows the worst warning of the section and its stages.
+	//
+	// Example: past-warning
+	Verdict ApiSectionResponseVerdict `json:"verdict"`
+
+	// Warnings Warnings are the section's own (stage 0: impellers per casing,
+	// stage-count levels), the coolers' (stage: the stage before), and every
+	// stage's (stage: its number).
+	Warnings []ApiSectionWarningOut `json:"warnings"`
+}
+
+// ApiSectionResponseArrangement Arrangement is "geared" or "inline".
+//
+// Example: geared
+type ApiSectionResponseArrangement string
+
+// ApiSectionResponseStageCountBasis StageCountBasis is "given" or "chosen" (the least count inside every stage's levels).
+//
+// Example: chosen
+type ApiSectionResponseStageCountBasis string
+
+// ApiSectionResponseVerdict Verdict follows the worst warning of the section and its stages.
+//
+// Example: past-warning
+type ApiSectionResponseVerdict string
+
+// ApiSectionStateOut defines model for api.SectionStateOut.
+type ApiSectionStateOut struct {
+	// Pressure Pressure, Pa absolute.
+	//
+	// Example: 200000
+	Pressure float64 `json:"pressure"`
+
+	// Temperature Temperature, K.
+	//
+	// Example: 313.15
+	Temperature float64 `json:"temperature"`
+}
+
+// ApiSectionWarningOut defines model for api.SectionWarningOut.
+type ApiSectionWarningOut struct {
+	// Basis Basis is where the level comes from: a standard or paper, "common practice, no source", or a caller override.
+	Basis string `json:"basis"`
+
+	// Code Code is our own name for the concern, e.g. "tip-speed", "impellers-per-casing", "stage-inlet-condensate".
+	//
+	// Example: stage-inlet-condensate
+	Code string `json:"code"`
+
+	// Limit Limit is the level the value is near or past, in unit.
+	Limit float64 `json:"limit"`
+
+	// Margin Margin is the distance to the warning level as a fraction of it: positive inside, negative past it.
+	Margin  float64 `json:"margin"`
+	Message string  `json:"message"`
+
+	// Severity Severity is "notice" (near a level), "warning" (past the soft level) or "limit" (past the limit of normal practice).
+	//
+	// Example: warning
+	Severity ApiSectionWarningOutSeverity `json:"severity"`
+
+	// Stage Stage is the stage the warning belongs to (1-based); 0 for the section.
+	//
+	// Example: 2
+	Stage int `json:"stage"`
+
+	// Unit Example: -
+	Unit string `json:"unit"`
+
+	// Value Value measured, in unit.
+	Value float64 `json:"value"`
+}
+
+// ApiSectionWarningOutSeverity Severity is "notice" (near a level), "warning" (past the soft level) or "limit" (past the limit of normal practice).
+//
+// Example: warning
+type ApiSectionWarningOutSeverity string
+
 // ApiSpeedChoiceOut defines model for api.SpeedChoiceOut.
 type ApiSpeedChoiceOut struct {
 	// Basis Basis is "given", "tip-diameter", "specific-speed" or "flow-coefficient".
@@ -2916,6 +3381,9 @@ type RateMachineJSONRequestBody = ApiRateRequest
 
 // RateMachineBatchJSONRequestBody defines body for RateMachineBatch for application/json ContentType.
 type RateMachineBatchJSONRequestBody = ApiRateBatchRequest
+
+// SizeSectionJSONRequestBody defines body for SizeSection for application/json ContentType.
+type SizeSectionJSONRequestBody = ApiSectionRequest
 
 // SizeStageJSONRequestBody defines body for SizeStage for application/json ContentType.
 type SizeStageJSONRequestBody = ApiStageRequest
@@ -3539,6 +4007,192 @@ func (t ApiInletSpec_MeridionalVelocity) MarshalJSON() ([]byte, error) {
 }
 
 func (t *ApiInletSpec_MeridionalVelocity) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
+// AsApiIntercoolingSpecCoolantTemperature0 returns the union data inside the ApiIntercoolingSpec_CoolantTemperature as a ApiIntercoolingSpecCoolantTemperature0
+func (t ApiIntercoolingSpec_CoolantTemperature) AsApiIntercoolingSpecCoolantTemperature0() (ApiIntercoolingSpecCoolantTemperature0, error) {
+	var body ApiIntercoolingSpecCoolantTemperature0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiIntercoolingSpecCoolantTemperature0 overwrites any union data inside the ApiIntercoolingSpec_CoolantTemperature as the provided ApiIntercoolingSpecCoolantTemperature0
+func (t *ApiIntercoolingSpec_CoolantTemperature) FromApiIntercoolingSpecCoolantTemperature0(v ApiIntercoolingSpecCoolantTemperature0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiIntercoolingSpecCoolantTemperature0 performs a merge with any union data inside the ApiIntercoolingSpec_CoolantTemperature, using the provided ApiIntercoolingSpecCoolantTemperature0
+func (t *ApiIntercoolingSpec_CoolantTemperature) MergeApiIntercoolingSpecCoolantTemperature0(v ApiIntercoolingSpecCoolantTemperature0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiIntercoolingSpecCoolantTemperature1 returns the union data inside the ApiIntercoolingSpec_CoolantTemperature as a ApiIntercoolingSpecCoolantTemperature1
+func (t ApiIntercoolingSpec_CoolantTemperature) AsApiIntercoolingSpecCoolantTemperature1() (ApiIntercoolingSpecCoolantTemperature1, error) {
+	var body ApiIntercoolingSpecCoolantTemperature1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiIntercoolingSpecCoolantTemperature1 overwrites any union data inside the ApiIntercoolingSpec_CoolantTemperature as the provided ApiIntercoolingSpecCoolantTemperature1
+func (t *ApiIntercoolingSpec_CoolantTemperature) FromApiIntercoolingSpecCoolantTemperature1(v ApiIntercoolingSpecCoolantTemperature1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiIntercoolingSpecCoolantTemperature1 performs a merge with any union data inside the ApiIntercoolingSpec_CoolantTemperature, using the provided ApiIntercoolingSpecCoolantTemperature1
+func (t *ApiIntercoolingSpec_CoolantTemperature) MergeApiIntercoolingSpecCoolantTemperature1(v ApiIntercoolingSpecCoolantTemperature1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiIntercoolingSpec_CoolantTemperature) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiIntercoolingSpec_CoolantTemperature) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
+// AsApiIntercoolingSpecOutletTemperature0 returns the union data inside the ApiIntercoolingSpec_OutletTemperature as a ApiIntercoolingSpecOutletTemperature0
+func (t ApiIntercoolingSpec_OutletTemperature) AsApiIntercoolingSpecOutletTemperature0() (ApiIntercoolingSpecOutletTemperature0, error) {
+	var body ApiIntercoolingSpecOutletTemperature0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiIntercoolingSpecOutletTemperature0 overwrites any union data inside the ApiIntercoolingSpec_OutletTemperature as the provided ApiIntercoolingSpecOutletTemperature0
+func (t *ApiIntercoolingSpec_OutletTemperature) FromApiIntercoolingSpecOutletTemperature0(v ApiIntercoolingSpecOutletTemperature0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiIntercoolingSpecOutletTemperature0 performs a merge with any union data inside the ApiIntercoolingSpec_OutletTemperature, using the provided ApiIntercoolingSpecOutletTemperature0
+func (t *ApiIntercoolingSpec_OutletTemperature) MergeApiIntercoolingSpecOutletTemperature0(v ApiIntercoolingSpecOutletTemperature0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiIntercoolingSpecOutletTemperature1 returns the union data inside the ApiIntercoolingSpec_OutletTemperature as a ApiIntercoolingSpecOutletTemperature1
+func (t ApiIntercoolingSpec_OutletTemperature) AsApiIntercoolingSpecOutletTemperature1() (ApiIntercoolingSpecOutletTemperature1, error) {
+	var body ApiIntercoolingSpecOutletTemperature1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiIntercoolingSpecOutletTemperature1 overwrites any union data inside the ApiIntercoolingSpec_OutletTemperature as the provided ApiIntercoolingSpecOutletTemperature1
+func (t *ApiIntercoolingSpec_OutletTemperature) FromApiIntercoolingSpecOutletTemperature1(v ApiIntercoolingSpecOutletTemperature1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiIntercoolingSpecOutletTemperature1 performs a merge with any union data inside the ApiIntercoolingSpec_OutletTemperature, using the provided ApiIntercoolingSpecOutletTemperature1
+func (t *ApiIntercoolingSpec_OutletTemperature) MergeApiIntercoolingSpecOutletTemperature1(v ApiIntercoolingSpecOutletTemperature1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiIntercoolingSpec_OutletTemperature) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiIntercoolingSpec_OutletTemperature) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
+// AsApiIntercoolingSpecPressureDrop0 returns the union data inside the ApiIntercoolingSpec_PressureDrop as a ApiIntercoolingSpecPressureDrop0
+func (t ApiIntercoolingSpec_PressureDrop) AsApiIntercoolingSpecPressureDrop0() (ApiIntercoolingSpecPressureDrop0, error) {
+	var body ApiIntercoolingSpecPressureDrop0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiIntercoolingSpecPressureDrop0 overwrites any union data inside the ApiIntercoolingSpec_PressureDrop as the provided ApiIntercoolingSpecPressureDrop0
+func (t *ApiIntercoolingSpec_PressureDrop) FromApiIntercoolingSpecPressureDrop0(v ApiIntercoolingSpecPressureDrop0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiIntercoolingSpecPressureDrop0 performs a merge with any union data inside the ApiIntercoolingSpec_PressureDrop, using the provided ApiIntercoolingSpecPressureDrop0
+func (t *ApiIntercoolingSpec_PressureDrop) MergeApiIntercoolingSpecPressureDrop0(v ApiIntercoolingSpecPressureDrop0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiIntercoolingSpecPressureDrop1 returns the union data inside the ApiIntercoolingSpec_PressureDrop as a ApiIntercoolingSpecPressureDrop1
+func (t ApiIntercoolingSpec_PressureDrop) AsApiIntercoolingSpecPressureDrop1() (ApiIntercoolingSpecPressureDrop1, error) {
+	var body ApiIntercoolingSpecPressureDrop1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiIntercoolingSpecPressureDrop1 overwrites any union data inside the ApiIntercoolingSpec_PressureDrop as the provided ApiIntercoolingSpecPressureDrop1
+func (t *ApiIntercoolingSpec_PressureDrop) FromApiIntercoolingSpecPressureDrop1(v ApiIntercoolingSpecPressureDrop1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiIntercoolingSpecPressureDrop1 performs a merge with any union data inside the ApiIntercoolingSpec_PressureDrop, using the provided ApiIntercoolingSpecPressureDrop1
+func (t *ApiIntercoolingSpec_PressureDrop) MergeApiIntercoolingSpecPressureDrop1(v ApiIntercoolingSpecPressureDrop1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiIntercoolingSpec_PressureDrop) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiIntercoolingSpec_PressureDrop) UnmarshalJSON(b []byte) error {
 	err := t.union.UnmarshalJSON(b)
 	return err
 }
@@ -4597,6 +5251,254 @@ func (t *ApiRateRequest_Speed) UnmarshalJSON(b []byte) error {
 	return err
 }
 
+// AsApiSectionRequestDischargePressure0 returns the union data inside the ApiSectionRequest_DischargePressure as a ApiSectionRequestDischargePressure0
+func (t ApiSectionRequest_DischargePressure) AsApiSectionRequestDischargePressure0() (ApiSectionRequestDischargePressure0, error) {
+	var body ApiSectionRequestDischargePressure0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiSectionRequestDischargePressure0 overwrites any union data inside the ApiSectionRequest_DischargePressure as the provided ApiSectionRequestDischargePressure0
+func (t *ApiSectionRequest_DischargePressure) FromApiSectionRequestDischargePressure0(v ApiSectionRequestDischargePressure0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiSectionRequestDischargePressure0 performs a merge with any union data inside the ApiSectionRequest_DischargePressure, using the provided ApiSectionRequestDischargePressure0
+func (t *ApiSectionRequest_DischargePressure) MergeApiSectionRequestDischargePressure0(v ApiSectionRequestDischargePressure0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiSectionRequestDischargePressure1 returns the union data inside the ApiSectionRequest_DischargePressure as a ApiSectionRequestDischargePressure1
+func (t ApiSectionRequest_DischargePressure) AsApiSectionRequestDischargePressure1() (ApiSectionRequestDischargePressure1, error) {
+	var body ApiSectionRequestDischargePressure1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiSectionRequestDischargePressure1 overwrites any union data inside the ApiSectionRequest_DischargePressure as the provided ApiSectionRequestDischargePressure1
+func (t *ApiSectionRequest_DischargePressure) FromApiSectionRequestDischargePressure1(v ApiSectionRequestDischargePressure1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiSectionRequestDischargePressure1 performs a merge with any union data inside the ApiSectionRequest_DischargePressure, using the provided ApiSectionRequestDischargePressure1
+func (t *ApiSectionRequest_DischargePressure) MergeApiSectionRequestDischargePressure1(v ApiSectionRequestDischargePressure1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiSectionRequest_DischargePressure) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiSectionRequest_DischargePressure) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
+// AsApiSectionRequestMechanicalLosses0 returns the union data inside the ApiSectionRequest_MechanicalLosses as a ApiSectionRequestMechanicalLosses0
+func (t ApiSectionRequest_MechanicalLosses) AsApiSectionRequestMechanicalLosses0() (ApiSectionRequestMechanicalLosses0, error) {
+	var body ApiSectionRequestMechanicalLosses0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiSectionRequestMechanicalLosses0 overwrites any union data inside the ApiSectionRequest_MechanicalLosses as the provided ApiSectionRequestMechanicalLosses0
+func (t *ApiSectionRequest_MechanicalLosses) FromApiSectionRequestMechanicalLosses0(v ApiSectionRequestMechanicalLosses0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiSectionRequestMechanicalLosses0 performs a merge with any union data inside the ApiSectionRequest_MechanicalLosses, using the provided ApiSectionRequestMechanicalLosses0
+func (t *ApiSectionRequest_MechanicalLosses) MergeApiSectionRequestMechanicalLosses0(v ApiSectionRequestMechanicalLosses0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiSectionRequestMechanicalLosses1 returns the union data inside the ApiSectionRequest_MechanicalLosses as a ApiSectionRequestMechanicalLosses1
+func (t ApiSectionRequest_MechanicalLosses) AsApiSectionRequestMechanicalLosses1() (ApiSectionRequestMechanicalLosses1, error) {
+	var body ApiSectionRequestMechanicalLosses1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiSectionRequestMechanicalLosses1 overwrites any union data inside the ApiSectionRequest_MechanicalLosses as the provided ApiSectionRequestMechanicalLosses1
+func (t *ApiSectionRequest_MechanicalLosses) FromApiSectionRequestMechanicalLosses1(v ApiSectionRequestMechanicalLosses1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiSectionRequestMechanicalLosses1 performs a merge with any union data inside the ApiSectionRequest_MechanicalLosses, using the provided ApiSectionRequestMechanicalLosses1
+func (t *ApiSectionRequest_MechanicalLosses) MergeApiSectionRequestMechanicalLosses1(v ApiSectionRequestMechanicalLosses1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiSectionRequest_MechanicalLosses) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiSectionRequest_MechanicalLosses) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
+// AsApiSectionRequestSpeed0 returns the union data inside the ApiSectionRequest_Speed as a ApiSectionRequestSpeed0
+func (t ApiSectionRequest_Speed) AsApiSectionRequestSpeed0() (ApiSectionRequestSpeed0, error) {
+	var body ApiSectionRequestSpeed0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiSectionRequestSpeed0 overwrites any union data inside the ApiSectionRequest_Speed as the provided ApiSectionRequestSpeed0
+func (t *ApiSectionRequest_Speed) FromApiSectionRequestSpeed0(v ApiSectionRequestSpeed0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiSectionRequestSpeed0 performs a merge with any union data inside the ApiSectionRequest_Speed, using the provided ApiSectionRequestSpeed0
+func (t *ApiSectionRequest_Speed) MergeApiSectionRequestSpeed0(v ApiSectionRequestSpeed0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiSectionRequestSpeed1 returns the union data inside the ApiSectionRequest_Speed as a ApiSectionRequestSpeed1
+func (t ApiSectionRequest_Speed) AsApiSectionRequestSpeed1() (ApiSectionRequestSpeed1, error) {
+	var body ApiSectionRequestSpeed1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiSectionRequestSpeed1 overwrites any union data inside the ApiSectionRequest_Speed as the provided ApiSectionRequestSpeed1
+func (t *ApiSectionRequest_Speed) FromApiSectionRequestSpeed1(v ApiSectionRequestSpeed1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiSectionRequestSpeed1 performs a merge with any union data inside the ApiSectionRequest_Speed, using the provided ApiSectionRequestSpeed1
+func (t *ApiSectionRequest_Speed) MergeApiSectionRequestSpeed1(v ApiSectionRequestSpeed1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiSectionRequest_Speed) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiSectionRequest_Speed) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
+// AsApiSectionRequestTipDiameter0 returns the union data inside the ApiSectionRequest_TipDiameter as a ApiSectionRequestTipDiameter0
+func (t ApiSectionRequest_TipDiameter) AsApiSectionRequestTipDiameter0() (ApiSectionRequestTipDiameter0, error) {
+	var body ApiSectionRequestTipDiameter0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiSectionRequestTipDiameter0 overwrites any union data inside the ApiSectionRequest_TipDiameter as the provided ApiSectionRequestTipDiameter0
+func (t *ApiSectionRequest_TipDiameter) FromApiSectionRequestTipDiameter0(v ApiSectionRequestTipDiameter0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiSectionRequestTipDiameter0 performs a merge with any union data inside the ApiSectionRequest_TipDiameter, using the provided ApiSectionRequestTipDiameter0
+func (t *ApiSectionRequest_TipDiameter) MergeApiSectionRequestTipDiameter0(v ApiSectionRequestTipDiameter0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiSectionRequestTipDiameter1 returns the union data inside the ApiSectionRequest_TipDiameter as a ApiSectionRequestTipDiameter1
+func (t ApiSectionRequest_TipDiameter) AsApiSectionRequestTipDiameter1() (ApiSectionRequestTipDiameter1, error) {
+	var body ApiSectionRequestTipDiameter1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiSectionRequestTipDiameter1 overwrites any union data inside the ApiSectionRequest_TipDiameter as the provided ApiSectionRequestTipDiameter1
+func (t *ApiSectionRequest_TipDiameter) FromApiSectionRequestTipDiameter1(v ApiSectionRequestTipDiameter1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiSectionRequestTipDiameter1 performs a merge with any union data inside the ApiSectionRequest_TipDiameter, using the provided ApiSectionRequestTipDiameter1
+func (t *ApiSectionRequest_TipDiameter) MergeApiSectionRequestTipDiameter1(v ApiSectionRequestTipDiameter1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiSectionRequest_TipDiameter) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiSectionRequest_TipDiameter) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
 // AsApiSpeedRangeSpecMaximumContinuous0 returns the union data inside the ApiSpeedRangeSpec_MaximumContinuous as a ApiSpeedRangeSpecMaximumContinuous0
 func (t ApiSpeedRangeSpec_MaximumContinuous) AsApiSpeedRangeSpecMaximumContinuous0() (ApiSpeedRangeSpecMaximumContinuous0, error) {
 	var body ApiSpeedRangeSpecMaximumContinuous0
@@ -5327,6 +6229,24 @@ type ClientInterface interface {
 	// Corresponds with POST /v1/machine/rate/batch (the `RateMachineBatch` operationId).
 	RateMachineBatch(ctx context.Context, body RateMachineBatchJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error)
 
+	// SizeSectionWithBody Size a multi-stage section with intercooling
+	//
+	// Turns a duty too big for one impeller into a section: the stage count (given, or the least for which every stage stays inside its levels: tip speed, stage pressure ratio and head, discharge temperature, flow-coefficient band), the split (equal polytropic head), coolers between stages (outlet temperature or coolant + approach, pressure drop, condensate removed by a flash at the outlet), every stage's full answer, the section totals (mechanical losses once per shaft), warnings and the machine as built for /v1/machine/rate, /map and /check. "geared" gives each stage its own speed; "inline" one shaft speed. Results are preliminary estimates; see the cautions field.
+	//
+	// Takes any type of body and a specified content type.
+	//
+	// Corresponds with POST /v1/section/size (the `SizeSection` operationId).
+	SizeSectionWithBody(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*http.Response, error)
+
+	// SizeSection Size a multi-stage section with intercooling
+	//
+	// Turns a duty too big for one impeller into a section: the stage count (given, or the least for which every stage stays inside its levels: tip speed, stage pressure ratio and head, discharge temperature, flow-coefficient band), the split (equal polytropic head), coolers between stages (outlet temperature or coolant + approach, pressure drop, condensate removed by a flash at the outlet), every stage's full answer, the section totals (mechanical losses once per shaft), warnings and the machine as built for /v1/machine/rate, /map and /check. "geared" gives each stage its own speed; "inline" one shaft speed. Results are preliminary estimates; see the cautions field.
+	//
+	// Takes a body of the `application/json` content type.
+	//
+	// Corresponds with POST /v1/section/size (the `SizeSection` operationId).
+	SizeSection(ctx context.Context, body SizeSectionJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error)
+
 	// SizeStageWithBody Size one centrifugal stage for a gas duty
 	//
 	// Turns a gas duty (gas, suction state, discharge pressure or pressure ratio, flow, speed, efficiency) and impeller choices (blade exit angle, slip factor, power input factor, inlet) into the tip speed and diameters, inlet and exit widths, heads, discharge temperature, gas and shaft power, driver rating, every limit check with its margin, warnings and provenance. Physical inputs are SI numbers or strings with a unit ("35 degC", "14.7 psia"). Results are preliminary estimates; see the cautions field.
@@ -5577,6 +6497,44 @@ func (c *Client) RateMachineBatchWithBody(ctx context.Context, contentType strin
 // Corresponds with POST /v1/machine/rate/batch (the `RateMachineBatch` operationId).
 func (c *Client) RateMachineBatch(ctx context.Context, body RateMachineBatchJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error) {
 	req, err := NewRateMachineBatchRequest(c.Server, body)
+	if err != nil {
+		return nil, err
+	}
+	req = req.WithContext(ctx)
+	if err := c.applyEditors(ctx, req, reqEditors); err != nil {
+		return nil, err
+	}
+	return c.Client.Do(req)
+}
+
+// SizeSectionWithBody Size a multi-stage section with intercooling
+//
+// Turns a duty too big for one impeller into a section: the stage count (given, or the least for which every stage stays inside its levels: tip speed, stage pressure ratio and head, discharge temperature, flow-coefficient band), the split (equal polytropic head), coolers between stages (outlet temperature or coolant + approach, pressure drop, condensate removed by a flash at the outlet), every stage's full answer, the section totals (mechanical losses once per shaft), warnings and the machine as built for /v1/machine/rate, /map and /check. "geared" gives each stage its own speed; "inline" one shaft speed. Results are preliminary estimates; see the cautions field.
+//
+// Takes any type of body and a specified content type.
+//
+// Corresponds with POST /v1/section/size (the `SizeSection` operationId).
+func (c *Client) SizeSectionWithBody(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*http.Response, error) {
+	req, err := NewSizeSectionRequestWithBody(c.Server, contentType, body)
+	if err != nil {
+		return nil, err
+	}
+	req = req.WithContext(ctx)
+	if err := c.applyEditors(ctx, req, reqEditors); err != nil {
+		return nil, err
+	}
+	return c.Client.Do(req)
+}
+
+// SizeSection Size a multi-stage section with intercooling
+//
+// Turns a duty too big for one impeller into a section: the stage count (given, or the least for which every stage stays inside its levels: tip speed, stage pressure ratio and head, discharge temperature, flow-coefficient band), the split (equal polytropic head), coolers between stages (outlet temperature or coolant + approach, pressure drop, condensate removed by a flash at the outlet), every stage's full answer, the section totals (mechanical losses once per shaft), warnings and the machine as built for /v1/machine/rate, /map and /check. "geared" gives each stage its own speed; "inline" one shaft speed. Results are preliminary estimates; see the cautions field.
+//
+// Takes a body of the `application/json` content type.
+//
+// Corresponds with POST /v1/section/size (the `SizeSection` operationId).
+func (c *Client) SizeSection(ctx context.Context, body SizeSectionJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error) {
+	req, err := NewSizeSectionRequest(c.Server, body)
 	if err != nil {
 		return nil, err
 	}
@@ -5946,6 +6904,46 @@ func NewRateMachineBatchRequestWithBody(server string, contentType string, body 
 	return req, nil
 }
 
+// NewSizeSectionRequest calls the generic SizeSection builder with application/json body
+func NewSizeSectionRequest(server string, body SizeSectionJSONRequestBody) (*http.Request, error) {
+	var bodyReader io.Reader
+	buf, err := json.Marshal(body)
+	if err != nil {
+		return nil, err
+	}
+	bodyReader = bytes.NewReader(buf)
+	return NewSizeSectionRequestWithBody(server, "application/json", bodyReader)
+}
+
+// NewSizeSectionRequestWithBody constructs an http.Request for the SizeSection method, with any body, and a specified content type
+func NewSizeSectionRequestWithBody(server string, contentType string, body io.Reader) (*http.Request, error) {
+	var err error
+
+	serverURL, err := url.Parse(server)
+	if err != nil {
+		return nil, err
+	}
+
+	operationPath := fmt.Sprintf("/v1/section/size")
+	if operationPath[0] == '/' {
+		operationPath = "." + operationPath
+	}
+
+	queryURL, err := serverURL.Parse(operationPath)
+	if err != nil {
+		return nil, err
+	}
+
+	req, err := http.NewRequest(http.MethodPost, queryURL.String(), body)
+	if err != nil {
+		return nil, err
+	}
+
+	req.Header.Add("Content-Type", contentType)
+
+	return req, nil
+}
+
 // NewSizeStageRequest calls the generic SizeStage builder with application/json body
 func NewSizeStageRequest(server string, body SizeStageJSONRequestBody) (*http.Request, error) {
 	var bodyReader io.Reader
@@ -6202,6 +7200,24 @@ type ClientWithResponsesInterface interface {
 	//
 	// Corresponds with POST /v1/machine/rate/batch (the `RateMachineBatch` operationId).
 	RateMachineBatchWithResponse(ctx context.Context, body RateMachineBatchJSONRequestBody, reqEditors ...RequestEditorFn) (*RateMachineBatchResponse, error)
+
+	// SizeSectionWithBodyWithResponse Size a multi-stage section with intercooling
+	//
+	// Turns a duty too big for one impeller into a section: the stage count (given, or the least for which every stage stays inside its levels: tip speed, stage pressure ratio and head, discharge temperature, flow-coefficient band), the split (equal polytropic head), coolers between stages (outlet temperature or coolant + approach, pressure drop, condensate removed by a flash at the outlet), every stage's full answer, the section totals (mechanical losses once per shaft), warnings and the machine as built for /v1/machine/rate, /map and /check. "geared" gives each stage its own speed; "inline" one shaft speed. Results are preliminary estimates; see the cautions field.
+	//
+	// Takes any type of body and a specified content type, and returns a wrapper object for the known response body format(s).
+	//
+	// Corresponds with POST /v1/section/size (the `SizeSection` operationId).
+	SizeSectionWithBodyWithResponse(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*SizeSectionResponse, error)
+
+	// SizeSectionWithResponse Size a multi-stage section with intercooling
+	//
+	// Turns a duty too big for one impeller into a section: the stage count (given, or the least for which every stage stays inside its levels: tip speed, stage pressure ratio and head, discharge temperature, flow-coefficient band), the split (equal polytropic head), coolers between stages (outlet temperature or coolant + approach, pressure drop, condensate removed by a flash at the outlet), every stage's full answer, the section totals (mechanical losses once per shaft), warnings and the machine as built for /v1/machine/rate, /map and /check. "geared" gives each stage its own speed; "inline" one shaft speed. Results are preliminary estimates; see the cautions field.
+	//
+	// Takes a body of the `application/json` content type, and returns a wrapper object for the known response body format(s).
+	//
+	// Corresponds with POST /v1/section/size (the `SizeSection` operationId).
+	SizeSectionWithResponse(ctx context.Context, body SizeSectionJSONRequestBody, reqEditors ...RequestEditorFn) (*SizeSectionResponse, error)
 
 	// SizeStageWithBodyWithResponse Size one centrifugal stage for a gas duty
 	//
@@ -6778,6 +7794,96 @@ func (r RateMachineBatchResponse) ContentType() string {
 	return ""
 }
 
+type SizeSectionResponse struct {
+	Body         []byte
+	HTTPResponse *http.Response
+	// JSON200 the response for an HTTP 200 `application/json` response
+	JSON200 *ApiSectionResponse
+	// ApplicationproblemJSON400 the response for an HTTP 400 `application/problem+json` response
+	ApplicationproblemJSON400 *ApiProblem
+	// ApplicationproblemJSON401 the response for an HTTP 401 `application/problem+json` response
+	ApplicationproblemJSON401 *ApiProblem
+	// ApplicationproblemJSON413 the response for an HTTP 413 `application/problem+json` response
+	ApplicationproblemJSON413 *ApiProblem
+	// ApplicationproblemJSON422 the response for an HTTP 422 `application/problem+json` response
+	ApplicationproblemJSON422 *ApiProblem
+	// ApplicationproblemJSON500 the response for an HTTP 500 `application/problem+json` response
+	ApplicationproblemJSON500 *ApiProblem
+	// ApplicationproblemJSON503 the response for an HTTP 503 `application/problem+json` response
+	ApplicationproblemJSON503 *ApiProblem
+	// ApplicationproblemJSON504 the response for an HTTP 504 `application/problem+json` response
+	ApplicationproblemJSON504 *ApiProblem
+}
+
+// GetJSON200 returns the response for an HTTP 200 `application/json` response
+func (r SizeSectionResponse) GetJSON200() *ApiSectionResponse {
+	return r.JSON200
+}
+
+// GetApplicationproblemJSON400 returns the response for an HTTP 400 `application/problem+json` response
+func (r SizeSectionResponse) GetApplicationproblemJSON400() *ApiProblem {
+	return r.ApplicationproblemJSON400
+}
+
+// GetApplicationproblemJSON401 returns the response for an HTTP 401 `application/problem+json` response
+func (r SizeSectionResponse) GetApplicationproblemJSON401() *ApiProblem {
+	return r.ApplicationproblemJSON401
+}
+
+// GetApplicationproblemJSON413 returns the response for an HTTP 413 `application/problem+json` response
+func (r SizeSectionResponse) GetApplicationproblemJSON413() *ApiProblem {
+	return r.ApplicationproblemJSON413
+}
+
+// GetApplicationproblemJSON422 returns the response for an HTTP 422 `application/problem+json` response
+func (r SizeSectionResponse) GetApplicationproblemJSON422() *ApiProblem {
+	return r.ApplicationproblemJSON422
+}
+
+// GetApplicationproblemJSON500 returns the response for an HTTP 500 `application/problem+json` response
+func (r SizeSectionResponse) GetApplicationproblemJSON500() *ApiProblem {
+	return r.ApplicationproblemJSON500
+}
+
+// GetApplicationproblemJSON503 returns the response for an HTTP 503 `application/problem+json` response
+func (r SizeSectionResponse) GetApplicationproblemJSON503() *ApiProblem {
+	return r.ApplicationproblemJSON503
+}
+
+// GetApplicationproblemJSON504 returns the response for an HTTP 504 `application/problem+json` response
+func (r SizeSectionResponse) GetApplicationproblemJSON504() *ApiProblem {
+	return r.ApplicationproblemJSON504
+}
+
+// GetBody returns the raw response body bytes
+func (r SizeSectionResponse) GetBody() []byte {
+	return r.Body
+}
+
+// Status returns HTTPResponse.Status
+func (r SizeSectionResponse) Status() string {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.Status
+	}
+	return http.StatusText(0)
+}
+
+// StatusCode returns HTTPResponse.StatusCode
+func (r SizeSectionResponse) StatusCode() int {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.StatusCode
+	}
+	return 0
+}
+
+// ContentType is a convenience method to retrieve the Content-Type value from the HTTP response headers
+func (r SizeSectionResponse) ContentType() string {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.Header.Get("Content-Type")
+	}
+	return ""
+}
+
 type SizeStageResponse struct {
 	Body         []byte
 	HTTPResponse *http.Response
@@ -7168,6 +8274,36 @@ func (c *ClientWithResponses) RateMachineBatchWithResponse(ctx context.Context, 
 		return nil, err
 	}
 	return ParseRateMachineBatchResponse(rsp)
+}
+
+// SizeSectionWithBodyWithResponse Size a multi-stage section with intercooling
+//
+// Turns a duty too big for one impeller into a section: the stage count (given, or the least for which every stage stays inside its levels: tip speed, stage pressure ratio and head, discharge temperature, flow-coefficient band), the split (equal polytropic head), coolers between stages (outlet temperature or coolant + approach, pressure drop, condensate removed by a flash at the outlet), every stage's full answer, the section totals (mechanical losses once per shaft), warnings and the machine as built for /v1/machine/rate, /map and /check. "geared" gives each stage its own speed; "inline" one shaft speed. Results are preliminary estimates; see the cautions field.
+//
+// Takes any type of body and a specified content type, and returns a wrapper object for the known response body format(s).
+//
+// Corresponds with POST /v1/section/size (the `SizeSection` operationId).
+func (c *ClientWithResponses) SizeSectionWithBodyWithResponse(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*SizeSectionResponse, error) {
+	rsp, err := c.SizeSectionWithBody(ctx, contentType, body, reqEditors...)
+	if err != nil {
+		return nil, err
+	}
+	return ParseSizeSectionResponse(rsp)
+}
+
+// SizeSectionWithResponse Size a multi-stage section with intercooling
+//
+// Turns a duty too big for one impeller into a section: the stage count (given, or the least for which every stage stays inside its levels: tip speed, stage pressure ratio and head, discharge temperature, flow-coefficient band), the split (equal polytropic head), coolers between stages (outlet temperature or coolant + approach, pressure drop, condensate removed by a flash at the outlet), every stage's full answer, the section totals (mechanical losses once per shaft), warnings and the machine as built for /v1/machine/rate, /map and /check. "geared" gives each stage its own speed; "inline" one shaft speed. Results are preliminary estimates; see the cautions field.
+//
+// Takes a body of the `application/json` content type, and returns a wrapper object for the known response body format(s).
+//
+// Corresponds with POST /v1/section/size (the `SizeSection` operationId).
+func (c *ClientWithResponses) SizeSectionWithResponse(ctx context.Context, body SizeSectionJSONRequestBody, reqEditors ...RequestEditorFn) (*SizeSectionResponse, error) {
+	rsp, err := c.SizeSection(ctx, body, reqEditors...)
+	if err != nil {
+		return nil, err
+	}
+	return ParseSizeSectionResponse(rsp)
 }
 
 // SizeStageWithBodyWithResponse Size one centrifugal stage for a gas duty
@@ -7648,6 +8784,81 @@ func ParseRateMachineBatchResponse(rsp *http.Response) (*RateMachineBatchRespons
 			return nil, err
 		}
 		response.ApplicationproblemJSON413 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 500:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON500 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 503:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON503 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 504:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON504 = &dest
+
+	}
+
+	return response, nil
+}
+
+// ParseSizeSectionResponse parses an HTTP response from a SizeSectionWithResponse call
+func ParseSizeSectionResponse(rsp *http.Response) (*SizeSectionResponse, error) {
+	bodyBytes, err := io.ReadAll(rsp.Body)
+	defer func() { _ = rsp.Body.Close() }()
+	if err != nil {
+		return nil, err
+	}
+
+	response := &SizeSectionResponse{
+		Body:         bodyBytes,
+		HTTPResponse: rsp,
+	}
+
+	switch {
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 200:
+		var dest ApiSectionResponse
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.JSON200 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 400:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON400 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 401:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON401 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 413:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON413 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 422:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON422 = &dest
 
 	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 500:
 		var dest ApiProblem
