@@ -41,7 +41,8 @@ func mapSVG(m MapResponse) ([]byte, error) {
 	p.Y.Label.Text = "polytropic head (kJ/kg)"
 	p.Add(plotter.NewGrid())
 	p.Legend.Top = true
-	p.Legend.Left = false
+	p.Legend.Left = true
+	p.Legend.XOffs = vg.Points(10)
 	design := 0.0
 	if m.DesignPoint.Speed > 0 {
 		design = m.DesignPoint.Speed
@@ -70,11 +71,18 @@ func mapSVG(m MapResponse) ([]byte, error) {
 			name = fmt.Sprintf("%.0f rev/min (%.0f %%)", l.Speed, 100*l.Speed/design)
 		}
 		if len(xys) > 0 {
-			lab, err := plotter.NewLabels(plotter.XYLabels{XYs: xys[len(xys)-1:], Labels: []string{name}})
+			// the label sits above the line's highest point
+			top := 0
+			for k := range xys {
+				if xys[k].Y > xys[top].Y {
+					top = k
+				}
+			}
+			lab, err := plotter.NewLabels(plotter.XYLabels{XYs: xys[top : top+1], Labels: []string{name}})
 			if err != nil {
 				return nil, err
 			}
-			lab.Offset = vg.Point{X: vg.Points(4), Y: vg.Points(2)}
+			lab.Offset = vg.Point{X: vg.Points(-30), Y: vg.Points(5)}
 			for j := range lab.TextStyle {
 				lab.TextStyle[j].Color = line.Color
 				lab.TextStyle[j].Font.Size = vg.Points(8)
