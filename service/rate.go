@@ -271,6 +271,10 @@ func (s *Service) stack(ctx context.Context, pm *preparedMachine, op operating, 
 		p, err := line.At(mdot)
 		if err != nil {
 			if errors.Is(err, offdesign.ErrPastChoke) {
+				if !margins { // a search step: the choke flow itself is not needed
+					mc, passage := line.MaxFlow()
+					return out, s.chokeProblemAt(mc, passage, in, mdot, k, len(pm.stages))
+				}
 				return out, s.chokeProblem(line, in, mdot, k, len(pm.stages))
 			}
 			return out, fieldErr("flow", fmt.Errorf("stage %d: %w", k+1, err))
@@ -607,7 +611,7 @@ func (s *Service) speedForPressure(ctx context.Context, pm *preparedMachine, op 
 	}
 	side := 0
 	x := 0.5 * (lo + hi)
-	for range 200 {
+	for range 80 {
 		if okLo {
 			x = hi - fhi*(hi-lo)/(fhi-flo)
 			if !(x > lo && x < hi) {

@@ -490,7 +490,7 @@ func (l *Line) AtFrom(mdot float64, near *Point) (Point, error) {
 		if err != nil {
 			return Point{}, fmt.Errorf("compression at %.6g J/kg: %w", ex.w, err)
 		}
-		if math.Abs(comp.IsentropicEfficiency-etaS) <= 1e-12 || outer >= 20 {
+		if math.Abs(comp.IsentropicEfficiency-etaS) <= 1e-12 || outer >= 8 {
 			break
 		}
 		etaS = comp.IsentropicEfficiency
@@ -547,7 +547,7 @@ func (l *Line) exitFixedPoint(mdot, cr2, etaS, u1, ct1, tanB, psi, sigma float64
 	var x0, r0 float64
 	have := false
 	x := cr2
-	for range 60 {
+	for range 40 {
 		ex, next, err := eval(x)
 		if err != nil {
 			return ex, x, err
@@ -656,7 +656,7 @@ func (l *Line) Choke() (float64, string, error) {
 	}
 	side := 0
 	x := 0.5 * (loM + hiM)
-	for range 100 {
+	for range 60 {
 		if okHi {
 			x = hiM - hHi*(hiM-loM)/(hHi-hLo)
 			if !(x > loM && x < hiM) {
