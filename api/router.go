@@ -18,6 +18,7 @@ type Services interface {
 	StageSizer
 	SectionSizer
 	GasPropertyService
+	MachineService
 }
 
 // Options configure the router. The zero value of every field but Spec
@@ -123,7 +124,7 @@ func NewRouter(svc Services, opts Options) (*gin.Engine, error) {
 	if opts.ComputeTimeout > 0 {
 		v1.Use(computeDeadline(opts.ComputeTimeout))
 	}
-	dec := newRequestDecoder(StageRequest{}, BatchRequest{}, PropertiesRequest{}, SectionRequest{})
+	dec := newRequestDecoder(StageRequest{}, BatchRequest{}, PropertiesRequest{}, SectionRequest{}, RateRequest{}, RateBatchRequest{}, MapRequest{})
 	st := stageHandler{svc: svc, decoder: dec, log: log}
 	v1.POST("/stage/size", st.size)
 	v1.POST("/stage/size/batch", st.sizeBatch)
@@ -131,6 +132,10 @@ func NewRouter(svc Services, opts Options) (*gin.Engine, error) {
 	v1.POST("/gas/properties", gh.properties)
 	v1.GET("/gas/components", gh.components)
 	v1.POST("/section/size", sectionHandler{svc: svc, decoder: dec, log: log}.size)
+	mh := machineHandler{svc: svc, decoder: dec, log: log}
+	v1.POST("/machine/rate", mh.rate)
+	v1.POST("/machine/rate/batch", mh.rateBatch)
+	v1.POST("/machine/map", mh.mapChart)
 	return r, nil
 }
 

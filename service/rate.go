@@ -315,7 +315,7 @@ func (s *Service) stack(ctx context.Context, pm *preparedMachine, op operating, 
 func (s *Service) chokeProblem(line *offdesign.Line, in gas.State, mdot float64, k, n int) error {
 	mc, passage, err := line.Choke()
 	if err != nil {
-		mc, passage = line.InducerChoke()
+		mc, passage = line.MaxFlow()
 	}
 	return s.chokeProblemAt(mc, passage, in, mdot, k, n)
 }
@@ -327,18 +327,20 @@ func (s *Service) chokeProblemAt(mc float64, passage string, in gas.State, mdot 
 	}
 	q, qc := mdot/float64(in.Density), mc/float64(in.Density)
 	return fieldErr("flow", reason("flow", fmt.Sprintf(
-		"the flow of %.5g m3/s (%.5g kg/s) at %s's suction is past its estimated choke flow of %.5g m3/s (%.5g kg/s; sonic flow in the %s) at this speed: lower the flow or raise the speed (the choke flow is an estimate)",
+		"the flow of %.5g m3/s (%.5g kg/s) at %s's suction is past its estimated choke flow of %.5g m3/s (%.5g kg/s; %s) at this speed: lower the flow or raise the speed (the choke flow is an estimate)",
 		q, mdot, who, qc, mc, passageText(passage)), q))
 }
 
 func passageText(p string) string {
 	switch p {
 	case offdesign.ChokeEye:
-		return "impeller eye"
+		return "sonic flow in the impeller eye"
 	case offdesign.ChokeDiffuserThroat:
-		return "vaned diffuser throat"
+		return "sonic flow in the vaned diffuser throat"
+	case offdesign.ChokeZeroWork:
+		return "the impeller's work and head fall to zero there, before any passage is sonic"
 	}
-	return "inducer throat"
+	return "sonic flow in the inducer throat"
 }
 
 // coolBetween takes the gas through the cooler after stage k (0-based)
