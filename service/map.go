@@ -247,6 +247,33 @@ func (s *Service) mapLine(ctx context.Context, pm *preparedMachine, op operating
 			mc = math.Min(mc, r.OperatingPoint.ChokeFlow*rho)
 		}
 	}
+	if len(pm.stages) > 1 && ms < mc {
+		// Far from the middle of the range a later stage may choke well
+		// before the estimate above (stage mismatch): the line ends at the
+		// largest flow the stack passes, found by bisection.
+		top := ms + (mc-ms)*mapChokeFraction
+		o := op
+		o.mdot = top
+		if _, err := s.stack(ctx, pm, o, n, false); err != nil {
+			lo, hi := ms, top
+			o.mdot = ms
+			if _, err := s.stack(ctx, pm, o, n, false); err != nil {
+				hi = ms // choked already at the surge flow: no stable range
+			}
+			for hi-lo > 1e-6*hi {
+				if err := ctx.Err(); err != nil {
+					return SpeedLine{}, 0, 0, err
+				}
+				o.mdot = 0.5 * (lo + hi)
+				if _, err := s.stack(ctx, pm, o, n, false); err != nil {
+					hi = o.mdot
+				} else {
+					lo = o.mdot
+				}
+			}
+			mc = ms + (lo-ms)/mapChokeFraction
+		}
+	}
 	if !(ms < mc) {
 		return SpeedLine{}, 0, 0, fieldErr("flow", reason("speed", fmt.Sprintf("at %.0f rev/min the estimated surge flow is not below the estimated choke flow: the machine has no stable range at this speed", n), n))
 	}
