@@ -8,6 +8,7 @@ import (
 	"strconv"
 
 	"stagewright/physics/gas"
+	"stagewright/physics/offdesign"
 )
 
 // Map defaults.
@@ -279,11 +280,25 @@ func (s *Service) mapLine(ctx context.Context, pm *preparedMachine, op operating
 	}
 	out := SpeedLine{Speed: n}
 	p1 := float64(op.suction.Pressure)
+	var prev *offdesign.Point
 	for i := range points {
 		if err := ctx.Err(); err != nil {
 			return SpeedLine{}, 0, 0, err
 		}
 		mdot := ms + (mc-ms)*mapChokeFraction*float64(i)/float64(points-1)
+		if len(pm.stages) == 1 {
+			// One stage: walk the line from its neighbour (no stacking).
+			p, err := line1.AtFrom(mdot, prev)
+			if err != nil {
+				return SpeedLine{}, 0, 0, fieldErr("flow", err)
+			}
+			prev = &p
+			c := p.Compression
+			out.Points = append(out.Points, MapPoint{ActualVolumeFlow: mdot / rho, MassFlow: mdot, Head: float64(c.PolytropicHead),
+				PressureRatio: float64(c.Discharge.Pressure) / p1, Efficiency: float64(c.PolytropicHead) / float64(c.Work),
+				Power: mdot * float64(c.Work) / pm.mechEff})
+			continue
+		}
 		o := op
 		o.mdot = mdot
 		st, err := s.stack(ctx, pm, o, n, false)

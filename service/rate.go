@@ -383,12 +383,12 @@ func fillRating(r *Rating, pm *preparedMachine, st stacked) {
 	r.PolytropicEfficiency, r.IsentropicEfficiency = hp/w, hs/w
 	r.DischargePressure, r.DischargeTemperature = float64(st.discharge.Pressure), float64(st.discharge.Temperature)
 	shaft := gp / pm.mechEff
-	// The margin to 12 significant digits: the default rating is exactly
+	// The margin to 9 significant digits: the default rating is exactly
 	// 1.10 × the design shaft power, which the design point must not grade
-	// as below 1.10 by a rounding error.
+	// as below 1.10 by the solver's last digits.
 	margin := pm.driverRating / shaft
 	if e := math.Floor(math.Log10(margin)); physics.Finite(e) {
-		scale := math.Pow(10, 11-e)
+		scale := math.Pow(10, 8-e)
 		margin = math.Round(margin*scale) / scale
 	}
 	r.Power = Power{Gas: gp, Shaft: shaft, MechanicalEfficiency: pm.mechEff, DriverRating: pm.driverRating, DriverMargin: margin}
