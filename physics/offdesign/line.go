@@ -473,7 +473,7 @@ func (l *Line) AtFrom(mdot float64, near *Point) (Point, error) {
 	tanB := math.Tan(rad(s.BladeExitAngle))
 	psi, sigma := s.PowerInputFactor, s.SlipFactor
 	eff := path.Efficiency{Basis: path.Polytropic, Value: eta}
-	etaS := l.isentropicGuess(eta, p.FlowCoefficient) // first guess of the stage isentropic efficiency
+	etaS, _ := l.isentropicGuess(eta, p.FlowCoefficient) // first guess of the stage isentropic efficiency
 	cr2 := 0.25 * l.u2 * p.FlowCoefficient / s.Design.FlowCoefficient
 	if near != nil && near.TipSpeed > 0 && near.FlowCoefficient > 0 {
 		cr2 = near.ExitFlowCoefficient * l.u2 * p.FlowCoefficient / near.FlowCoefficient
@@ -481,18 +481,26 @@ func (l *Line) AtFrom(mdot float64, near *Point) (Point, error) {
 	}
 	var ex exitState
 	var comp path.Result
+	// A first guess of the discharge pressure: the neighbour's, then the
+	// previous pass's (the perfect-gas guess from below slows Newton,
+	// which converges from the isothermal bound above).
+	var near2 physics.Pascal
+	if near != nil {
+		near2 = near.Compression.Discharge.Pressure
+	}
 	for outer := 0; ; outer++ {
 		ex, cr2, err = l.exitFixedPoint(mdot, cr2, etaS, u1, ct1, tanB, psi, sigma)
 		if err != nil {
 			return Point{}, err
 		}
-		comp, err = path.CompressionForWork(m, st, physics.JoulePerKg(ex.w), eff, s.Method)
+		comp, err = path.CompressionForWorkNear(m, st, physics.JoulePerKg(ex.w), eff, s.Method, near2)
 		if err != nil {
 			return Point{}, fmt.Errorf("compression at %.6g J/kg: %w", ex.w, err)
 		}
 		if math.Abs(comp.IsentropicEfficiency-etaS) <= etaSTolerance || outer >= 8 {
 			break
 		}
+		near2 = comp.Discharge.Pressure
 		etaS = comp.IsentropicEfficiency
 	}
 	p.Compression = comp
@@ -519,30 +527,31 @@ func (l *Line) AtFrom(mdot float64, near *Point) (Point, error) {
 // below the 1e-9 of the results.
 const etaSTolerance = 1e-9
 
-// isentropicGuess is a first guess of the stage isentropic efficiency for
-// the polytropic efficiency eta at flow coefficient phi: the perfect-gas
+// isentropicGuess is a first guess of the stage isentropic efficiency and
+// pressure ratio for the polytropic efficiency eta at flow coefficient
+// phi (0 for the ratio when no guess is made): the perfect-gas
 // conversion at the suction state's isentropic exponent and the pressure
 // ratio of the Euler work of the design exit flow coefficient scaled with
 // phi (Dixon & Hall 2014, ch. 2, small-stage efficiency).
-func (l *Line) isentropicGuess(eta, phi float64) float64 {
+func (l *Line) isentropicGuess(eta, phi float64) (etaS, pr float64) {
 	st, s := l.suction, l.stage
 	k := st.IsentropicExponent
 	if !(k > 1) || !(k < 2) {
-		return eta
+		return eta, 0
 	}
 	cr2 := 0.25 * l.u2 * phi / s.Design.FlowCoefficient
 	w := s.PowerInputFactor * l.u2 * (s.SlipFactor*l.u2 - cr2*math.Tan(rad(s.BladeExitAngle)))
 	cpT := float64(st.Pressure) / float64(st.Density) * k / (k - 1)
 	if !(w > 0) || !(cpT > 0) {
-		return eta
+		return eta, 0
 	}
 	tr := 1 + w/cpT
-	pr := math.Pow(tr, eta*k/(k-1))
+	pr = math.Pow(tr, eta*k/(k-1))
 	es, err := path.PerfectGasIsentropicEfficiency(eta, pr, k)
-	if err != nil || !(es > 0 && es <= 1) {
-		return eta
+	if err != nil || !(es > 0 && es <= 1) || !physics.Finite(pr) {
+		return eta, 0
 	}
-	return es
+	return es, pr
 }
 
 type exitState struct {
