@@ -10,7 +10,8 @@ import (
 // (process simulators, batches): every number of StageResponse, the codes,
 // the verdict and the provenance's input hash, without the limit table's
 // prose, the bases, the warning messages, the methods, the defaults, the
-// binary interaction parameters with their sources and
+// binary interaction parameters with their sources, the machine (ask the
+// full view once for the machine an asset system stores) and
 // the cautions. Those matter to a person reading the answer: the full
 // view (POST /v1/stage/size) keeps them.
 type CompactStageResponse struct {
@@ -93,7 +94,7 @@ func compactOf(r *StageResponse) CompactStageResponse {
 // sizeCompact sizes one stage and answers the compact view.
 //
 //	@Summary		Size one stage: compact answer for machines
-//	@Description	The same sizing as POST /v1/stage/size (same request, same problems) answered in the compact view: every number, code and the verdict, the provenance's model and input hash, without the limit table's prose and bases, the warning messages, the methods, the defaults, the kij table and the cautions (about half the bytes of the full answer). For process simulators and other machines; a person reading a result should use the full view, whose cautions apply to this answer too.
+//	@Description	The same sizing as POST /v1/stage/size (same request, same problems) answered in the compact view: every number, code and the verdict, the provenance's model and input hash, without the limit table's prose and bases, the warning messages, the methods, the defaults, the kij table, the machine object (take it from the full answer) and the cautions (about half the bytes of the full answer). For process simulators and other machines; a person reading a result should use the full view, whose cautions apply to this answer too.
 //	@Tags			stage
 //	@Accept			json
 //	@Produce		json

@@ -19,6 +19,7 @@ func fullMinusProse(t *testing.T, full []byte) map[string]any {
 	var m map[string]any
 	require.NoError(t, json.Unmarshal(full, &m))
 	delete(m, "cautions")
+	delete(m, "machine")
 	prov := m["provenance"].(map[string]any)
 	delete(prov, "methods")
 	delete(prov, "defaults_applied")

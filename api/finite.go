@@ -43,7 +43,16 @@ func (g finiteGuard[T]) check(v *T) error {
 type finitePlan struct {
 	floats []uintptr    // offsets of float64 values (nested structs and arrays flattened)
 	refs   []finiteRef  // pointers and slices that may lead to floats
-	walk   reflect.Type // non-nil when the type holds a map or an interface: checked by reflection
+	maps   []finiteMap  // maps and interfaces: checked by reflection, each on its own
+	walk   reflect.Type // non-nil when the type holds a float32 or complex: checked by reflection
+}
+
+// finiteMap is a map or interface field at off, walked by reflection (the
+// composition of a machine's gas, limit overrides): small, and rare in the
+// answers, so the rest of the plan keeps its direct reads.
+type finiteMap struct {
+	off uintptr
+	t   reflect.Type
 }
 
 // finiteRef is a pointer or slice field at off whose target holds floats.
@@ -70,14 +79,17 @@ func planFinite(t reflect.Type) *finitePlan {
 	return p
 }
 
-// add records the floats of a t at off; false when t holds a kind the
-// plan does not cover (map, interface, float32, complex).
+// add records the floats of a t at off; maps and interfaces are recorded
+// to be walked by reflection; false when t holds a kind the plan does not
+// cover (float32, complex).
 func (p *finitePlan) add(t reflect.Type, off uintptr) bool {
 	switch t.Kind() {
 	case reflect.Float64:
 		p.floats = append(p.floats, off)
-	case reflect.Float32, reflect.Complex64, reflect.Complex128, reflect.Map, reflect.Interface:
+	case reflect.Float32, reflect.Complex64, reflect.Complex128:
 		return false
+	case reflect.Map, reflect.Interface:
+		p.maps = append(p.maps, finiteMap{off: off, t: t})
 	case reflect.Struct:
 		for i := range t.NumField() {
 			f := t.Field(i)
@@ -96,7 +108,7 @@ func (p *finitePlan) add(t reflect.Type, off uintptr) bool {
 		if elem.walk != nil {
 			return false
 		}
-		if len(elem.floats) > 0 || len(elem.refs) > 0 {
+		if len(elem.floats) > 0 || len(elem.refs) > 0 || len(elem.maps) > 0 {
 			p.refs = append(p.refs, finiteRef{off: off, slice: t.Kind() == reflect.Slice, size: t.Elem().Size(), elem: elem})
 		}
 	}
@@ -112,6 +124,11 @@ func (p *finitePlan) ok(v unsafe.Pointer) bool {
 	for _, off := range p.floats {
 		f := *(*float64)(unsafe.Add(v, off))
 		if math.IsNaN(f) || math.IsInf(f, 0) {
+			return false
+		}
+	}
+	for _, m := range p.maps {
+		if _, _, bad := finiteWalk(reflect.NewAt(m.t, unsafe.Add(v, m.off)).Elem()); bad {
 			return false
 		}
 	}

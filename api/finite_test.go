@@ -97,8 +97,17 @@ func TestFiniteGuardPlans(t *testing.T) {
 	}
 	nan := math.NaN()
 	g := newFiniteGuard[outer]()
-	assert.NotNil(t, g.plan.walk, "a map is walked by reflection")
+	assert.Nil(t, g.plan.walk, "only the map is walked by reflection, not the whole value")
+	assert.Len(t, g.plan.maps, 1, "a map is walked by reflection")
 	assert.Error(t, g.check(&outer{M: map[string]float64{"k": nan}}))
+	assert.Error(t, g.check(&outer{X: [2]float64{1, nan}, M: map[string]float64{"k": 1}}))
+	assert.NoError(t, g.check(&outer{In: []inner{{A: 1}}, M: map[string]float64{"k": 1}}))
+	type deep struct {
+		Ptr *outer
+	}
+	d := newFiniteGuard[deep]()
+	assert.Error(t, d.check(&deep{Ptr: &outer{M: map[string]float64{"k": math.Inf(1)}}}), "a map behind a pointer")
+	assert.NoError(t, d.check(&deep{Ptr: &outer{M: map[string]float64{"k": 2}}}))
 	type flat struct {
 		X  [2]float64
 		In []inner

@@ -16,7 +16,9 @@ import (
 // Services are the use cases the router serves.
 type Services interface {
 	StageSizer
+	SectionSizer
 	GasPropertyService
+	MachineService
 }
 
 // Options configure the router. The zero value of every field but Spec
@@ -126,7 +128,7 @@ func NewRouter(svc Services, opts Options) (*gin.Engine, error) {
 	if err != nil {
 		return nil, err
 	}
-	dec := newRequestDecoder(StageRequest{}, BatchRequest{}, PropertiesRequest{})
+	dec := newRequestDecoder(StageRequest{}, BatchRequest{}, PropertiesRequest{}, SectionRequest{}, RateRequest{}, RateBatchRequest{}, MapRequest{})
 	st := stageHandler{svc: svc, decoder: dec, enc: enc, log: log}
 	v1.POST("/stage/size", st.size)
 	v1.POST("/stage/size/batch", st.sizeBatch)
@@ -135,6 +137,11 @@ func NewRouter(svc Services, opts Options) (*gin.Engine, error) {
 	gh := gasHandler{svc: svc, decoder: dec, enc: enc, log: log}
 	v1.POST("/gas/properties", gh.properties)
 	v1.GET("/gas/components", gh.components)
+	v1.POST("/section/size", sectionHandler{svc: svc, decoder: dec, log: log}.size)
+	mh := machineHandler{svc: svc, decoder: dec, log: log}
+	v1.POST("/machine/rate", mh.rate)
+	v1.POST("/machine/rate/batch", mh.rateBatch)
+	v1.POST("/machine/map", mh.mapChart)
 	return r, nil
 }
 

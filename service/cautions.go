@@ -28,7 +28,7 @@ func cautionsFor(m gas.Model, d StageDuty, res *StageResult) []string {
 			res.Speed, float64(res.Sizing.Velocities.TipSpeed)),
 		fmt.Sprintf("Overpressure: the discharge reaches %.0f kPa absolute at this duty and more at surge or blocked outlet; relief devices and the casing's design pressure must be set per the applicable pressure codes.",
 			float64(res.Path.Discharge.Pressure)/1e3),
-		"Surge: this single-point sizing does not estimate the surge line or the surge margin; an anti-surge control system and the manufacturer's map are required.",
+		"Surge: this sizing is a single design point; the estimated surge and choke lines of the sized stage come from POST /v1/machine/map and /v1/machine/rate with the answer's machine, and they are estimates (about ±10-15 % in flow): an anti-surge control system and the manufacturer's tested map are required.",
 		fmt.Sprintf("Discharge temperature: %.0f degC at this duty; seals, materials, lubricant and downstream equipment limits govern, and it rises at off-design points.",
 			float64(res.Path.Discharge.Temperature)-273.15),
 	}

@@ -452,3 +452,14 @@ func hydrocarbon(c Component) bool {
 	f := strings.TrimLeft(c.Formula, "in-")
 	return strings.Contains(f, "C") && strings.Contains(f, "H") && !strings.ContainsAny(f, "ONSae")
 }
+
+// Flash splits the gas at (t, p) into an equilibrium vapour and liquid
+// with the model's cubic equation (cubic.Mixture.Flash: Michelsen's
+// stability test, then Rachford-Rice with successive substitution on the
+// fugacities). The phase compositions are in the order of Composition.
+func (m Real) Flash(t physics.Kelvin, p physics.Pascal) (cubic.Flash, error) {
+	if err := checkTP(t, p); err != nil {
+		return cubic.Flash{}, err
+	}
+	return m.eos.Flash(m.x, t, p)
+}
