@@ -172,7 +172,7 @@ func (s *Service) SizeSection(ctx context.Context, d SectionDuty) (SectionResult
 		if err != nil {
 			return SectionResult{}, err
 		}
-		misses := levelMisses(d, &res)
+		misses := levelMisses(&res)
 		tried = append(tried, fmt.Sprintf("%d: %d", n, len(misses)))
 		if len(misses) < bestMisses {
 			r := res
@@ -640,7 +640,7 @@ var warningRules = [...]string{"stage-pressure-ratio", "impeller-head", "flow-co
 // hard limit (tip speed of the construction, discharge temperature, the
 // Mach numbers, ...) past that limit, and the warningRules past their
 // warning level.
-func levelMisses(d SectionDuty, res *SectionResult) []string {
+func levelMisses(res *SectionResult) []string {
 	var out []string
 	for k, st := range res.Stages {
 		for _, a := range st.Assessments {

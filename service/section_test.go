@@ -122,6 +122,9 @@ func TestSectionMatchesOneStepwisePath(t *testing.T) {
 	assert.InEpsilon(t, float64(one.PolytropicHead), res.PolytropicHead, 1e-5)
 	assert.InDelta(t, float64(one.Discharge.Temperature), float64(res.Discharge.Temperature), 0.01)
 	assert.InEpsilon(t, 9e6, float64(res.Discharge.Pressure), 1e-9)
+	t.Logf("sum of stage heads %.6f J/kg against one path %.6f J/kg (%.2e relative); discharge %.5f K against %.5f K",
+		res.PolytropicHead, float64(one.PolytropicHead), res.PolytropicHead/float64(one.PolytropicHead)-1,
+		float64(res.Discharge.Temperature), float64(one.Discharge.Temperature))
 	// Equal heads per stage.
 	for _, st := range res.Stages {
 		assert.InEpsilon(t, res.PolytropicHead/3, float64(st.Path.PolytropicHead), 1e-5)
