@@ -223,6 +223,10 @@ type CheckResult struct {
 // speed the rating searches).
 var ErrSpeedOutOfReach = errors.New("service: no speed makes the discharge pressure")
 
+// ErrChoked is what a rating at a given speed returns when the flow is at
+// or past the estimated choke flow.
+var ErrChoked = errors.New("service: flow at or past choke")
+
 // opPoint is one rated operating point as the check judges it.
 type opPoint struct {
 	Point CheckPoint
@@ -247,7 +251,9 @@ type opPoint struct {
 // (SuctionPressure > 0, a throttled suction) and either a speed
 // (Speed > 0) or the duty's discharge pressure (the speed is solved).
 type rateQuery struct {
-	Duty            CheckDuty
+	Duty CheckDuty
+	// FlowScale multiplies the duty's flow (0: 1).
+	FlowScale       float64
 	MassFlow        float64
 	SuctionPressure float64
 	Speed           float64
@@ -274,7 +280,7 @@ type operated struct {
 // it: the speed that makes the discharge pressure; below the minimum
 // speed, throttling at the minimum speed; left of the control line, the
 // recycle up to it; then the limits.
-func operate(ctx context.Context, rate rateFunc, d CheckDuty, designSpeed, control float64) (operated, error) {
+func operate(ctx context.Context, rate rateFunc, d, design CheckDuty, designSpeed, control float64) (operated, error) {
 	var op operated
 	pt, err := rate(ctx, rateQuery{Duty: d})
 	outOfReach := errors.Is(err, ErrSpeedOutOfReach)
@@ -282,31 +288,7 @@ func operate(ctx context.Context, rate rateFunc, d CheckDuty, designSpeed, contr
 		return op, err
 	}
 	if outOfReach {
-		// Rate at both ends of the speed range to say which side it is.
-		// At the design speed first: its rating names the speed range.
-		hi, err := rate(ctx, rateQuery{Duty: d, Speed: designSpeed})
-		if err != nil {
-			return op, err
-		}
-		hi2, err := rate(ctx, rateQuery{Duty: d, Speed: hi.MaxSpeed})
-		if err != nil {
-			return op, err
-		}
-		op.processMass, op.processVolume = hi2.Point.MassFlow, hi2.Point.VolumeFlow
-		if hi2.Point.DischargePressure < d.DischargePressure {
-			op.pt = hi2
-			op.reasons = append(op.reasons, Reason{Code: ReasonSpeedAboveMaximum, Unit: "Pa",
-				Message: fmt.Sprintf("at the maximum continuous speed (%.0f rev/min) the machine makes only %.0f kPa of the %.0f kPa the duty needs",
-					hi2.MaxSpeed, hi2.Point.DischargePressure/1e3, d.DischargePressure/1e3),
-				Value: hi2.Point.DischargePressure, Limit: d.DischargePressure})
-			judgeLimits(&op)
-			return op, nil
-		}
-		pt, err = rate(ctx, rateQuery{Duty: d, Speed: hi.MinSpeed})
-		if err != nil {
-			return op, err
-		}
-		return throttle(ctx, rate, d, pt, control)
+		return beyondReach(ctx, rate, d, design, designSpeed, control)
 	}
 	op.processMass, op.processVolume = pt.Point.MassFlow, pt.Point.VolumeFlow
 	switch {
@@ -319,6 +301,15 @@ func operate(ctx context.Context, rate rateFunc, d CheckDuty, designSpeed, contr
 		return op, nil
 	case pt.Point.Speed < pt.MinSpeed*(1-1e-9):
 		at, err := rate(ctx, rateQuery{Duty: d, Speed: pt.MinSpeed})
+		if errors.Is(err, ErrChoked) {
+			op.pt = pt
+			op.reasons = append(op.reasons, Reason{Code: ReasonSpeedBelowMinimum, Unit: "rev/min",
+				Message: fmt.Sprintf("the duty needs %.0f rev/min, below the minimum speed of %.0f rev/min, and at the minimum speed the flow is past the estimated choke flow: neither throttling nor recycle fits it",
+					pt.Point.Speed, pt.MinSpeed),
+				Value: pt.Point.Speed, Limit: pt.MinSpeed})
+			judgeLimits(&op)
+			return op, nil
+		}
 		if err != nil {
 			return op, err
 		}
@@ -332,6 +323,81 @@ func operate(ctx context.Context, rate rateFunc, d CheckDuty, designSpeed, contr
 			return op, err
 		}
 	}
+	judgeLimits(&op)
+	return op, nil
+}
+
+// beyondReach judges a duty that no speed of the rating's search makes:
+// at the maximum continuous speed the machine makes too little (or the
+// flow chokes), or at the minimum speed too much (then throttling).
+func beyondReach(ctx context.Context, rate rateFunc, d, design CheckDuty, designSpeed, control float64) (operated, error) {
+	var op operated
+	// The design point at the design speed names the speed range.
+	fr, err := rate(ctx, rateQuery{Duty: design, Speed: designSpeed})
+	if err != nil {
+		return op, fmt.Errorf("service: check: the machine at its own design point: %w", err)
+	}
+	hi, err := rate(ctx, rateQuery{Duty: d, Speed: fr.MaxSpeed})
+	switch {
+	case errors.Is(err, ErrChoked):
+		return chokedAtMaximum(ctx, rate, d, fr.MaxSpeed)
+	case err != nil:
+		return op, err
+	}
+	op.processMass, op.processVolume = hi.Point.MassFlow, hi.Point.VolumeFlow
+	if hi.Point.DischargePressure < d.DischargePressure {
+		op.pt = hi
+		op.reasons = append(op.reasons, Reason{Code: ReasonSpeedAboveMaximum, Unit: "Pa",
+			Message: fmt.Sprintf("at the maximum continuous speed (%.0f rev/min) the machine makes only %.0f kPa of the %.0f kPa the duty needs",
+				hi.MaxSpeed, hi.Point.DischargePressure/1e3, d.DischargePressure/1e3),
+			Value: hi.Point.DischargePressure, Limit: d.DischargePressure})
+		judgeLimits(&op)
+		return op, nil
+	}
+	lo, err := rate(ctx, rateQuery{Duty: d, Speed: fr.MinSpeed})
+	if err != nil {
+		return op, err
+	}
+	op, err = throttle(ctx, rate, d, lo, control)
+	op.processMass, op.processVolume = lo.Point.MassFlow, lo.Point.VolumeFlow
+	return op, err
+}
+
+// chokedAtMaximum answers a duty whose flow chokes the machine even at the
+// maximum continuous speed: the flow is halved until the machine passes
+// it, to learn the choke flow at that speed, and the point shown is the
+// machine at 98 % of that choke flow.
+func chokedAtMaximum(ctx context.Context, rate rateFunc, d CheckDuty, nmax float64) (operated, error) {
+	var op operated
+	var pt opPoint
+	var err error
+	scale := 1.0
+	for range 12 {
+		scale /= 2
+		pt, err = rate(ctx, rateQuery{Duty: d, Speed: nmax, FlowScale: scale})
+		if !errors.Is(err, ErrChoked) {
+			break
+		}
+	}
+	if err != nil {
+		return op, err
+	}
+	op.processMass, op.processVolume = pt.Point.MassFlow/scale, pt.Point.VolumeFlow/scale
+	qc := pt.Point.ChokeFlow
+	where := ""
+	if pt.Point.ChokeStage > 0 {
+		where = ", stage " + strconv.Itoa(pt.Point.ChokeStage) + " first"
+	}
+	if qc > 0 && pt.Density > 0 {
+		if at, err := rate(ctx, rateQuery{Duty: d, Speed: nmax, MassFlow: 0.98 * qc * pt.Density}); err == nil {
+			pt = at
+		}
+	}
+	op.pt = pt
+	op.reasons = append(op.reasons, Reason{Code: ReasonChoke, Unit: "m3/s",
+		Message: fmt.Sprintf("the flow (%.4g m3/s at suction) is past the estimated choke flow at every speed up to the maximum continuous speed (%.4g m3/s at %.0f rev/min%s); the operating point shown is the machine at that speed near its choke flow, and the choke flow is an estimate",
+			op.processVolume, qc, nmax, where),
+		Value: op.processVolume, Limit: qc})
 	judgeLimits(&op)
 	return op, nil
 }
@@ -405,7 +471,16 @@ func throttle(ctx context.Context, rate rateFunc, d CheckDuty, atMin opPoint, co
 	x1 := p1 * d.DischargePressure / atMin.Point.DischargePressure
 	pt1, f1, err := f(x1)
 	var found *opPoint
-	for i := 0; err == nil && i < 30; i++ {
+	for i := 0; i < 40; i++ {
+		if errors.Is(err, ErrChoked) && x0 > x1 {
+			// Throttled too far: the flow chokes. Step back towards x0.
+			x1 = 0.5 * (x0 + x1)
+			pt1, f1, err = f(x1)
+			continue
+		}
+		if err != nil {
+			break
+		}
 		if math.Abs(f1) <= 1e-7*d.DischargePressure {
 			found = &pt1
 			break
@@ -419,7 +494,7 @@ func throttle(ctx context.Context, rate rateFunc, d CheckDuty, atMin opPoint, co
 		x1 = x2
 		pt1, f1, err = f(x1)
 	}
-	if err != nil && !errors.Is(err, ErrSpeedOutOfReach) {
+	if err != nil && !errors.Is(err, ErrSpeedOutOfReach) && !errors.Is(err, ErrChoked) {
 		var ie *InputError
 		if !errors.As(err, &ie) {
 			return op, err
@@ -478,7 +553,11 @@ func throttle(ctx context.Context, rate rateFunc, d CheckDuty, atMin opPoint, co
 // and limit rules, and sets the verdict.
 func judgeLimits(op *operated) {
 	p := op.pt.Point
-	if p.ChokeFlow > 0 && p.ChokeMargin < MinChokeMargin {
+	choked := false
+	for _, r := range op.reasons {
+		choked = choked || r.Code == ReasonChoke
+	}
+	if !choked && p.ChokeFlow > 0 && p.ChokeMargin < MinChokeMargin {
 		where := ""
 		if p.ChokeStage > 0 {
 			where = " at stage " + strconv.Itoa(p.ChokeStage)
@@ -730,11 +809,13 @@ func (s *Service) check(ctx context.Context, req CheckRequest, rate rateFunc) (C
 		return res, err
 	}
 	designSpeed := m.Stages[0].Design.Speed
-	bo, err := operate(ctx, rate, *base, designSpeed, control)
+	design := CheckDuty{Gas: m.Stages[0].Design.Gas, SuctionPressure: m.Stages[0].Design.SuctionPressure,
+		SuctionTemperature: m.Stages[0].Design.SuctionTemperature, ActualVolumeFlow: &m.Stages[0].Design.VolumeFlow}
+	bo, err := operate(ctx, rate, *base, design, designSpeed, control)
 	if err != nil {
 		return res, prefixed(err, basePrefix)
 	}
-	ao, err := operate(ctx, rate, req.Duty, designSpeed, control)
+	ao, err := operate(ctx, rate, req.Duty, design, designSpeed, control)
 	if err != nil {
 		return res, prefixed(err, "duty.")
 	}

@@ -54,12 +54,17 @@ func (tm *toyMachine) rate(_ context.Context, q rateQuery) (opPoint, error) {
 	default:
 		mdot = *d.ActualVolumeFlow * d.SuctionPressure / (tm.r * t1)
 	}
+	if q.FlowScale > 0 && q.MassFlow == 0 {
+		mdot *= q.FlowScale
+	}
 	vol := mdot / rho
 	n := q.Speed
 	if n == 0 {
 		target := d.DischargePressure / p1
 		lo, hi := 0.2*tm.n0, 2*tm.n0
-		if tm.pr(hi, vol, t1) < target || tm.pr(lo, vol, t1) > target {
+		// A choked flow is too slow: search only above the choke speed.
+		lo = math.Max(lo, 1.001*vol/(0.16*math.Pi*tm.d*tm.d/4)*60/(math.Pi*tm.d))
+		if vol >= 0.16*math.Pi*tm.d*hi/60*math.Pi*tm.d*tm.d/4 || tm.pr(hi, vol, t1) < target || tm.pr(lo, vol, t1) > target {
 			return opPoint{}, fmt.Errorf("toy: %w", ErrSpeedOutOfReach)
 		}
 		for range 200 {
@@ -73,6 +78,9 @@ func (tm *toyMachine) rate(_ context.Context, q rateQuery) (opPoint, error) {
 	}
 	u := math.Pi * tm.d * n / 60
 	area := math.Pi * tm.d * tm.d / 4
+	if vol >= 0.16*u*area {
+		return opPoint{}, fmt.Errorf("toy: %w", ErrChoked)
+	}
 	pr := tm.pr(n, vol, t1)
 	hp := (0.65 - 1.5*vol/(u*area)) * u * u
 	t2 := t1 * math.Pow(pr, toyK)
@@ -105,7 +113,8 @@ func toyDuty(tm *toyMachine, flowScale, p2 float64) CheckDuty {
 func toyCheck(t *testing.T, tm *toyMachine, d CheckDuty) CheckResult {
 	t.Helper()
 	base := toyDuty(tm, 1, 0)
-	m := Machine{Stages: []MachineStage{{Design: DesignPoint{Speed: tm.n0}}}}
+	m := Machine{Stages: []MachineStage{{Design: DesignPoint{Speed: tm.n0, SuctionPressure: base.SuctionPressure,
+		SuctionTemperature: base.SuctionTemperature, VolumeFlow: *base.ActualVolumeFlow}}}}
 	res, err := New().check(context.Background(), CheckRequest{Machine: m, Duty: d, Baseline: &base}, tm.rate)
 	require.NoError(t, err)
 	return res
@@ -221,4 +230,20 @@ func TestCheckJudgingOutOfReach(t *testing.T) {
 	res = toyCheck(t, tm, toyDuty(tm, 1, 1.001e5))
 	require.Equal(t, CheckFitsThrottling, res.Verdict, "%+v", res.Reasons)
 	assert.InEpsilon(t, 1.001e5, res.OperatingPoint.DischargePressure, 1e-6)
+}
+
+// A flow past choke at every speed is does-not-fit for choke, shown at
+// the maximum continuous speed near its choke flow.
+func TestCheckJudgingChokedEverywhere(t *testing.T) {
+	tm := newToy()
+	d := toyDuty(tm, 3, 0)
+	res := toyCheck(t, tm, d)
+	require.Equal(t, CheckDoesNotFit, res.Verdict)
+	require.Len(t, res.Reasons, 1, "%+v", res.Reasons)
+	assert.Equal(t, ReasonChoke, res.Reasons[0].Code)
+	assert.InEpsilon(t, *d.ActualVolumeFlow, res.Reasons[0].Value, 1e-9)
+	// Toy choke at φ = 0.16 at 10 500 rev/min.
+	u := math.Pi * tm.d * tm.maxSpeed / 60
+	assert.InEpsilon(t, 0.16*u*math.Pi*tm.d*tm.d/4, res.Reasons[0].Limit, 1e-9)
+	assert.InEpsilon(t, tm.maxSpeed, res.OperatingPoint.Speed, 1e-12)
 }
