@@ -62,6 +62,9 @@ const (
 	MinChokeMargin = 0.05
 	// MinChokeMarginBasis is the basis recorded with it.
 	MinChokeMarginBasis = "flow at most 95 % of the estimated choke flow at its speed (common practice, no source)"
+	// ThrottlingBasis says how the throttling of a fits-with-throttling
+	// duty is taken.
+	ThrottlingBasis = "suction throttle valve ahead of the compressor at its minimum speed, the throttled gas at the suction temperature (the Joule-Thomson cooling of a real gas across the valve is neglected); the alternative recycles discharge gas, cooled to the suction temperature, at the minimum speed"
 )
 
 // CheckDuty is a duty of the check in SI: gas, suction total state, one
