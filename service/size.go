@@ -150,6 +150,7 @@ func (s *Service) SizeStage(ctx context.Context, d StageDuty) (StageResult, erro
 		return StageResult{}, err
 	}
 	res.Cautions = cautionsFor(model, d, &res)
+	res.Machine = machineOf(d, &res)
 	return res, nil
 }
 

@@ -291,6 +291,9 @@ type StageResult struct {
 	// BladeCount is the blade count used by a slip model (0 with a given
 	// slip factor).
 	BladeCount int
+	// Machine is the stage as built, in the shape the machine use cases
+	// (RateMachine, MapMachine) take back.
+	Machine Machine
 }
 
 func hashOf(d any) string {

@@ -1,0 +1,636 @@
+package offdesign
+
+import (
+	"errors"
+	"fmt"
+	"math"
+
+	"stagewright/physics"
+	"stagewright/physics/gas"
+	"stagewright/physics/path"
+	"stagewright/physics/stage"
+)
+
+// DefaultSurgeFlowAngle is the critical absolute flow angle at the
+// diffuser inlet, deg from radial, beyond which the stage is taken to
+// surge: the middle of the 70-80 deg band of Senoo & Kinoshita (1977) for
+// vaneless diffusers (from memory). The same criterion is applied to vaned
+// diffusers (a simplification: their surge is set by the vane incidence).
+const DefaultSurgeFlowAngle = 75.0
+
+// Inlet is the impeller inlet as built.
+type Inlet struct {
+	Kind stage.InletKind
+	// EyeTipDiameter and EyeHubDiameter are the axial eye's diameters, m.
+	EyeTipDiameter, EyeHubDiameter physics.Meter
+	// Diameter and Width are a radial inlet's D1 and b1, m.
+	Diameter, Width physics.Meter
+	// PrewhirlAngle is a fixed guide-vane flow angle at an axial eye, deg
+	// from axial, positive with rotation (constant across the span).
+	PrewhirlAngle float64
+	// BladeAngle is the inlet blade angle from the meridional direction at
+	// the rms eye diameter (axial eye) or at D1 (radial), deg: it sets the
+	// inducer throat area A1 cos β1 (see InletBladeAngle).
+	BladeAngle float64
+}
+
+// Stage is one impeller with its diffuser as built, and the numbers of
+// its design point that the map method scales from.
+type Stage struct {
+	TipDiameter, ExitWidth physics.Meter
+	// BladeExitAngle is the backsweep from radial, deg.
+	BladeExitAngle float64
+	SlipFactor     float64
+	// PowerInputFactor is actual over Euler work (≥ 1).
+	PowerInputFactor float64
+	// ExitBlockage is the blocked fraction of π D2 b2.
+	ExitBlockage float64
+	// ImpellerLossShare is the share of the stage loss arising in the
+	// impeller (for the exit total pressure; stage.DefaultImpellerLossShare).
+	ImpellerLossShare float64
+	Inlet             Inlet
+	// DiffuserThroatArea is the total throat area of a vaned diffuser, m²
+	// (0: vaneless, no diffuser choke).
+	DiffuserThroatArea float64
+	// Method is the polytropic method of the compression path.
+	Method path.Method
+	Design Design
+}
+
+// Design holds the design-point numbers of the map method.
+type Design struct {
+	// FlowCoefficient φ = Q01/(U2 π D2²/4) at design: the peak of the
+	// design speed line.
+	FlowCoefficient float64
+	// TipMach is U2/a01 at design.
+	TipMach float64
+	// PolytropicEfficiency at design: the peak of the design speed line.
+	PolytropicEfficiency float64
+	// ChokeFlowCoefficient is the choke flow coefficient at the design
+	// speed and gas (0: not known, the peak flow does not move).
+	ChokeFlowCoefficient float64
+	// SurgeFlowAngle is the critical diffuser-inlet flow angle, deg from
+	// radial (0: DefaultSurgeFlowAngle).
+	SurgeFlowAngle float64
+}
+
+// Check returns a DomainError naming the first dimension of s outside
+// what the model covers (names as the machine's fields: tip_diameter,
+// exit_width, blade_exit_angle, slip_factor, power_input_factor,
+// exit_blockage, inlet.eye_tip_diameter, inlet.eye_hub_diameter,
+// inlet.diameter, inlet.width, inlet.prewhirl_angle, diffuser.throat_area,
+// design.*).
+func (s Stage) Check() error {
+	d2 := float64(s.TipDiameter)
+	bad := func(name string, v float64, reason string) error {
+		return &physics.DomainError{Name: name, Value: v, Reason: reason}
+	}
+	switch {
+	case !(d2 > 0 && d2 <= float64(stage.MaxTipDiameter)):
+		return bad("tip_diameter", d2, fmt.Sprintf("the tip diameter must be a positive number of metres, at most %.0f m", float64(stage.MaxTipDiameter)))
+	case !(s.ExitWidth > 0):
+		return bad("exit_width", float64(s.ExitWidth), "the exit width must be a positive number of metres")
+	case !(float64(s.ExitWidth) < 0.5*d2):
+		return bad("exit_width", float64(s.ExitWidth), fmt.Sprintf("the exit width (%.4g m) must be well below the tip diameter (%.4g m): b2/D2 of centrifugal impellers lies below about 0.15", float64(s.ExitWidth), d2))
+	case !(s.BladeExitAngle >= 0 && s.BladeExitAngle <= stage.MaxBladeExitAngle):
+		return bad("blade_exit_angle", s.BladeExitAngle, "the blade exit angle is the backsweep from radial in degrees: 0 for radial blades, at most 75")
+	case !(s.SlipFactor > 0 && s.SlipFactor <= 1):
+		return bad("slip_factor", s.SlipFactor, "the slip factor must lie in (0, 1]")
+	case !(s.PowerInputFactor >= 1 && s.PowerInputFactor <= 2):
+		return bad("power_input_factor", s.PowerInputFactor, "the power input factor must lie between 1 and 2")
+	case !(s.ExitBlockage >= 0 && s.ExitBlockage < 0.5):
+		return bad("exit_blockage", s.ExitBlockage, "the exit blockage must lie in [0, 0.5)")
+	case !(s.ImpellerLossShare >= 0 && s.ImpellerLossShare <= 1):
+		return bad("impeller_loss_share", s.ImpellerLossShare, "the impeller loss share must lie in [0, 1]")
+	case !(s.DiffuserThroatArea >= 0) || math.IsInf(s.DiffuserThroatArea, 0):
+		return bad("diffuser.throat_area", s.DiffuserThroatArea, "the diffuser throat area must be a positive number of m2")
+	case !(s.Design.FlowCoefficient > 0 && s.Design.FlowCoefficient < 1):
+		return bad("design.flow_coefficient", s.Design.FlowCoefficient, "the design flow coefficient must lie in (0, 1)")
+	case !(s.Design.TipMach > 0 && s.Design.TipMach < 5):
+		return bad("design.tip_mach", s.Design.TipMach, "the design tip Mach number must lie in (0, 5)")
+	case !(s.Design.PolytropicEfficiency > 0 && s.Design.PolytropicEfficiency <= 1):
+		return bad("design.polytropic_efficiency", s.Design.PolytropicEfficiency, "the design polytropic efficiency must lie in (0, 1]")
+	}
+	in := s.Inlet
+	switch in.Kind {
+	case stage.InletAxialEye:
+		switch {
+		case !(in.EyeTipDiameter > 0 && float64(in.EyeTipDiameter) < d2):
+			return bad("inlet.eye_tip_diameter", float64(in.EyeTipDiameter), fmt.Sprintf("the eye tip diameter must be positive and smaller than the tip diameter (%.4g m)", d2))
+		case !(in.EyeHubDiameter >= 0 && in.EyeHubDiameter < in.EyeTipDiameter):
+			return bad("inlet.eye_hub_diameter", float64(in.EyeHubDiameter), "the eye hub diameter must be at least 0 and smaller than the eye tip diameter")
+		case !(in.PrewhirlAngle >= stage.MinPrewhirlAngle && in.PrewhirlAngle <= stage.MaxPrewhirlAngle):
+			return bad("inlet.prewhirl_angle", in.PrewhirlAngle, "the prewhirl angle must lie between -30 and 60 deg")
+		}
+	case stage.InletRadial:
+		switch {
+		case !(in.Diameter > 0 && float64(in.Diameter) < d2):
+			return bad("inlet.diameter", float64(in.Diameter), fmt.Sprintf("the inlet diameter must be positive and smaller than the tip diameter (%.4g m)", d2))
+		case !(in.Width > 0 && float64(in.Width) < float64(in.Diameter)):
+			return bad("inlet.width", float64(in.Width), "the inlet width must be positive and smaller than the inlet diameter")
+		case in.PrewhirlAngle != 0:
+			return bad("inlet.prewhirl_angle", in.PrewhirlAngle, "prewhirl is modelled for an axial eye only")
+		}
+	default:
+		return bad("inlet.type", 0, fmt.Sprintf("unknown inlet type %q: use radial or axial-eye", in.Kind))
+	}
+	if !(in.BladeAngle >= 0 && in.BladeAngle < 89) {
+		return bad("inlet.blade_angle", in.BladeAngle, "the inlet blade angle must lie in [0, 89) deg from the meridional direction")
+	}
+	return nil
+}
+
+// inletArea is the eye annulus π/4 (D1t² − Dh²) or π D1 b1.
+func (s Stage) inletArea() float64 {
+	in := s.Inlet
+	if in.Kind == stage.InletRadial {
+		return math.Pi * float64(in.Diameter) * float64(in.Width)
+	}
+	return math.Pi / 4 * (sq(float64(in.EyeTipDiameter)) - sq(float64(in.EyeHubDiameter)))
+}
+
+// inletRadius returns the radius of the blade angle: the rms eye radius
+// √((D1t² + Dh²)/8) or D1/2.
+func (s Stage) inletRadius() float64 {
+	in := s.Inlet
+	if in.Kind == stage.InletRadial {
+		return float64(in.Diameter) / 2
+	}
+	return math.Sqrt((sq(float64(in.EyeTipDiameter)) + sq(float64(in.EyeHubDiameter))) / 8)
+}
+
+// shroudRadius is the eye tip radius or D1/2.
+func (s Stage) shroudRadius() float64 {
+	if s.Inlet.Kind == stage.InletRadial {
+		return float64(s.Inlet.Diameter) / 2
+	}
+	return float64(s.Inlet.EyeTipDiameter) / 2
+}
+
+func sq(x float64) float64 { return x * x }
+
+func rad(deg float64) float64 { return deg * math.Pi / 180 }
+
+// Line is one speed line of a stage for a gas and suction state: the
+// speed, the inducer choke and the efficiency characteristic. Build it
+// with NewLine; it is read-only afterwards and safe for concurrent use.
+type Line struct {
+	model   gas.Model
+	suction gas.State
+	stage   Stage
+	speed   physics.RevPerMin
+	u2      float64
+	area2   float64 // π D2²/4
+	a1      float64 // inlet area
+	aExit   float64 // open exit area π D2 b2 (1 − B)
+	mu      float64 // U2/a01
+	etaPeak float64
+	phiPeak float64
+	// chokeFlow is the inducer's choke mass flow, kg/s, and chokePassage
+	// the passage that chokes ("inducer-throat" or "eye").
+	chokeFlow    float64
+	chokePassage string
+}
+
+// Passages that choke.
+const (
+	ChokeInducerThroat  = "inducer-throat"
+	ChokeEye            = "eye"
+	ChokeDiffuserThroat = "diffuser-throat"
+)
+
+// NewLine returns the speed line of stage s at speed n for gas m at
+// suction stagnation state suction. It finds the inducer choke flow: the
+// relative flow at the rms inlet radius reaches sonic speed in the throat
+// A1 cos β1 (β1 the inlet blade angle), from the relative stagnation
+// state h0,rel = h01 − U1 cθ1 + U1²/2 at the suction entropy (rothalpy
+// conserved from the eye; Dixon & Hall 2014, §7.5 inducer choking), or the
+// eye annulus itself in the absolute frame, whichever passes less.
+func NewLine(m gas.Model, suction gas.State, n physics.RevPerMin, s Stage) (*Line, error) {
+	if err := s.Check(); err != nil {
+		return nil, err
+	}
+	switch {
+	case m == nil:
+		return nil, &physics.DomainError{Name: "gas", Reason: "no gas model"}
+	case !(suction.Density > 0) || !(suction.SoundSpeed > 0) || !physics.Finite(float64(suction.Enthalpy), float64(suction.Entropy)):
+		return nil, &physics.DomainError{Name: "suction", Value: float64(suction.Density), Want: "a suction state with density and sound speed"}
+	case !(n > 0) || math.IsInf(float64(n), 0):
+		return nil, &physics.DomainError{Name: "speed", Value: float64(n), Want: "finite, > 0 rev/min",
+			Reason: "the rotational speed must be a positive number of rev/min"}
+	}
+	l := &Line{model: m, suction: suction, stage: s, speed: n}
+	l.u2 = float64(stage.PeripheralSpeed(s.TipDiameter, n))
+	l.area2 = math.Pi / 4 * sq(float64(s.TipDiameter))
+	l.a1 = s.inletArea()
+	l.aExit = math.Pi * float64(s.TipDiameter) * float64(s.ExitWidth) * (1 - s.ExitBlockage)
+	l.mu = l.u2 / float64(suction.SoundSpeed)
+	if err := l.inducerChoke(); err != nil {
+		return nil, err
+	}
+	phiChoke := l.chokeFlow / float64(suction.Density) / (l.u2 * l.area2)
+	l.phiPeak = s.Design.FlowCoefficient
+	if c := s.Design.ChokeFlowCoefficient; c > 0 && phiChoke < c {
+		// The peak follows the choke flow to lower flows as the inducer
+		// nears choke (Casey & Robinson 2013: the peak moves with the choke
+		// flow at high tip Mach number; the proportional shift is ours).
+		l.phiPeak *= phiChoke / c
+	}
+	if !(l.phiPeak < phiChoke) {
+		l.phiPeak = 0.9 * phiChoke
+	}
+	l.etaPeak = PeakEfficiency(s.Design.PolytropicEfficiency, s.Design.FlowCoefficient, s.Design.TipMach, l.mu)
+	return l, nil
+}
+
+// Speed is the line's speed, rev/min.
+func (l *Line) Speed() physics.RevPerMin { return l.speed }
+
+// TipSpeed is U2, m/s.
+func (l *Line) TipSpeed() float64 { return l.u2 }
+
+// TipMach is U2/a01.
+func (l *Line) TipMach() float64 { return l.mu }
+
+// PeakEfficiency is the polytropic efficiency at the line's peak.
+func (l *Line) PeakEfficiency() float64 { return l.etaPeak }
+
+// PeakFlowCoefficient is the flow coefficient of the line's peak.
+func (l *Line) PeakFlowCoefficient() float64 { return l.phiPeak }
+
+// FlowCoefficient returns φ = Q01/(U2 π D2²/4) of mass flow mdot.
+func (l *Line) FlowCoefficient(mdot float64) float64 {
+	return mdot / float64(l.suction.Density) / (l.u2 * l.area2)
+}
+
+// MassFlow returns the mass flow of flow coefficient phi.
+func (l *Line) MassFlow(phi float64) float64 {
+	return phi * l.u2 * l.area2 * float64(l.suction.Density)
+}
+
+// InducerChoke returns the inducer's choke mass flow, kg/s, and the
+// passage that chokes.
+func (l *Line) InducerChoke() (float64, string) { return l.chokeFlow, l.chokePassage }
+
+func (l *Line) inducerChoke() error {
+	s, m, st := l.stage, l.model, l.suction
+	in := s.Inlet
+	u1 := 2 * math.Pi * l.stage.inletRadius() * float64(l.speed) / 60
+	tanA := math.Tan(rad(in.PrewhirlAngle))
+	cosA := math.Cos(rad(in.PrewhirlAngle))
+	// The eye annulus in the absolute frame: c1 = cm1/cos α1.
+	fs, cs, err := SonicFlux(m, st)
+	if err != nil {
+		return fmt.Errorf("eye choke: %w", err)
+	}
+	eyeFlow := fs * cosA * l.a1
+	throat := l.a1 * math.Cos(rad(in.BladeAngle))
+	// Relative frame: h0,rel depends on cθ1 = cm1 tan α1, itself on the
+	// flow with prewhirl; iterate (no iteration without prewhirl).
+	ct1 := 0.0
+	var relFlow float64
+	for range 30 {
+		h0r := st.Enthalpy + physics.JoulePerKg(0.5*u1*u1-u1*ct1)
+		rel, err := gas.StateFromHS(m, h0r, st.Entropy, st.Pressure)
+		if err != nil {
+			return fmt.Errorf("inducer relative stagnation state: %w", err)
+		}
+		f, _, err := SonicFlux(m, rel)
+		if err != nil {
+			return fmt.Errorf("inducer choke: %w", err)
+		}
+		next := f * throat
+		done := math.Abs(next-relFlow) <= 1e-12*next
+		relFlow = next
+		if tanA == 0 || done {
+			break
+		}
+		mdot := math.Min(relFlow, 0.999999*eyeFlow)
+		sst, c, err := flowAt(m, st, mdot/(l.a1*cosA), float64(cs), fs)
+		if err != nil {
+			break
+		}
+		_ = sst
+		ct1 = c * cosA * tanA
+	}
+	l.chokeFlow, l.chokePassage = relFlow, ChokeInducerThroat
+	if eyeFlow < relFlow {
+		l.chokeFlow, l.chokePassage = eyeFlow, ChokeEye
+	}
+	if !(l.chokeFlow > 0) || math.IsInf(l.chokeFlow, 0) {
+		return &physics.DomainError{Name: "inlet", Value: l.chokeFlow, Want: "a finite choke flow"}
+	}
+	return nil
+}
+
+// Point is the stage at one mass flow on a speed line.
+type Point struct {
+	MassFlow float64 // kg/s
+	// VolumeFlow is the actual volume flow at suction, m³/s.
+	VolumeFlow      float64
+	FlowCoefficient float64
+	// WorkCoefficient is w/U2², HeadCoefficient Hp/U2².
+	WorkCoefficient, HeadCoefficient float64
+	TipSpeed                         float64 // m/s
+	TipMach                          float64 // U2/a01
+	// Compression is the total-to-total compression at the work and
+	// efficiency of the point.
+	Compression path.Result
+	// PolytropicEfficiency is the map's efficiency at the point.
+	PolytropicEfficiency float64
+	// Inlet velocities, m/s, at the rms radius unless named.
+	InletMeridional, InletWhirl, InletBladeSpeedShroud float64
+	InletAbsoluteMach, InletRelativeMachShroud         float64
+	// InletIncidence is the relative flow angle at the rms radius less the
+	// blade angle, deg (positive towards surge).
+	InletIncidence float64
+	InletStatic    gas.State
+	// Exit velocities, m/s, and the absolute flow angle from radial, deg.
+	ExitMeridional, ExitWhirl, ExitAbsolute, ExitRelative float64
+	ExitFlowAngle, ExitAbsoluteMach                       float64
+	ExitFlowCoefficient                                   float64 // cr2/U2
+	ExitStatic, ExitTotal                                 gas.State
+}
+
+// ErrPastChoke is wrapped by the error of a flow at or past choke.
+var ErrPastChoke = errors.New("physics: flow at or past choke")
+
+// chokeError is a DomainError that also unwraps to ErrPastChoke.
+type chokeError struct{ *physics.DomainError }
+
+func (e chokeError) Unwrap() []error { return []error{e.DomainError, ErrPastChoke} }
+
+func pastChoke(mdot, choke float64, passage string) error {
+	return chokeError{&physics.DomainError{Name: "flow", Value: mdot, Want: fmt.Sprintf("a mass flow below the choke flow %.6g kg/s", choke),
+		Reason: fmt.Sprintf("the flow of %.6g kg/s is at or past the estimated choke flow of %.6g kg/s (sonic flow in the %s) at this speed", mdot, choke, passage)}}
+}
+
+// At returns the stage at mass flow mdot on the line: the work from the
+// Euler equation with slip, backsweep and inlet whirl,
+//
+//	w = ψ (U2 cθ2 − U1 cθ1),  cθ2 = σ U2 − cr2 tan β2',  cr2 = ṁ/(ρ2 π D2 b2 (1 − B))
+//
+// with the exit static density ρ2 from the compression at that work and
+// the map efficiency (the impeller exit total pressure at the impeller's
+// isentropic efficiency 1 − share (1 − ηs), the static state at
+// c2 = √(cr2² + cθ2²)), iterated to a fixed point in cr2 by the secant
+// method; the discharge by path.CompressionForWork. The same relations size
+// the stage (package stage), so at the design flow and speed it gives the
+// design back. Sources: Dixon & Hall (2014) eq. 7.1 and §7.9; continuity
+// with blockage as stage.Size.
+func (l *Line) At(mdot float64) (Point, error) { return l.AtFrom(mdot, nil) }
+
+// AtFrom is At with a neighbouring point as the first guess of the
+// iteration (nil: none).
+func (l *Line) AtFrom(mdot float64, near *Point) (Point, error) {
+	if !(mdot > 0) || math.IsInf(mdot, 0) {
+		return Point{}, &physics.DomainError{Name: "flow", Value: mdot, Want: "finite, > 0 kg/s", Reason: "the flow must be a positive number"}
+	}
+	if mdot >= l.chokeFlow {
+		return Point{}, pastChoke(mdot, l.chokeFlow, l.passageName(l.chokePassage))
+	}
+	s, m, st := l.stage, l.model, l.suction
+	var p Point
+	p.MassFlow, p.VolumeFlow = mdot, mdot/float64(st.Density)
+	p.FlowCoefficient = l.FlowCoefficient(mdot)
+	p.TipSpeed, p.TipMach = l.u2, l.mu
+	eta, err := Efficiency(p.FlowCoefficient, l.phiPeak, l.FlowCoefficient(l.chokeFlow), l.etaPeak)
+	if err != nil {
+		return Point{}, pastChoke(mdot, l.chokeFlow, l.passageName(l.chokePassage))
+	}
+	p.PolytropicEfficiency = eta
+
+	// Inlet: continuity at the static density in the eye (subsonic branch).
+	in := s.Inlet
+	cosA, tanA := math.Cos(rad(in.PrewhirlAngle)), math.Tan(rad(in.PrewhirlAngle))
+	fs, cs, err := SonicFlux(m, st)
+	if err != nil {
+		return Point{}, err
+	}
+	ist, c1, err := flowAt(m, st, mdot/(l.a1*cosA), float64(cs), fs)
+	if err != nil {
+		return Point{}, pastChoke(mdot, l.chokeFlow, l.passageName(ChokeEye))
+	}
+	cm1 := c1 * cosA
+	ct1 := cm1 * tanA
+	r1 := s.inletRadius()
+	n := float64(l.speed)
+	u1 := 2 * math.Pi * r1 * n / 60
+	u1s := 2 * math.Pi * s.shroudRadius() * n / 60
+	p.InletStatic = ist
+	p.InletMeridional, p.InletWhirl, p.InletBladeSpeedShroud = cm1, ct1, u1s
+	p.InletAbsoluteMach = c1 / float64(ist.SoundSpeed)
+	p.InletRelativeMachShroud = math.Hypot(cm1, u1s-ct1) / float64(ist.SoundSpeed)
+	p.InletIncidence = math.Atan2(u1-ct1, cm1)*180/math.Pi - in.BladeAngle
+
+	// Exit: fixed point in cr2.
+	tanB := math.Tan(rad(s.BladeExitAngle))
+	psi, sigma := s.PowerInputFactor, s.SlipFactor
+	eff := path.Efficiency{Basis: path.Polytropic, Value: eta}
+	etaS := eta // first guess of the stage isentropic efficiency
+	cr2 := 0.25 * l.u2 * p.FlowCoefficient / s.Design.FlowCoefficient
+	if near != nil && near.TipSpeed > 0 && near.FlowCoefficient > 0 {
+		cr2 = near.ExitFlowCoefficient * l.u2 * p.FlowCoefficient / near.FlowCoefficient
+		etaS = near.Compression.IsentropicEfficiency
+	}
+	var ex exitState
+	var comp path.Result
+	for outer := 0; ; outer++ {
+		ex, cr2, err = l.exitFixedPoint(mdot, cr2, etaS, u1, ct1, tanB, psi, sigma)
+		if err != nil {
+			return Point{}, err
+		}
+		comp, err = path.CompressionForWork(m, st, physics.JoulePerKg(ex.w), eff, s.Method)
+		if err != nil {
+			return Point{}, fmt.Errorf("compression at %.6g J/kg: %w", ex.w, err)
+		}
+		if math.Abs(comp.IsentropicEfficiency-etaS) <= 1e-12 || outer >= 20 {
+			break
+		}
+		etaS = comp.IsentropicEfficiency
+	}
+	p.Compression = comp
+	u2sq := l.u2 * l.u2
+	p.WorkCoefficient = ex.w / u2sq
+	p.HeadCoefficient = float64(comp.PolytropicHead) / u2sq
+	p.ExitMeridional, p.ExitWhirl = cr2, ex.ct2
+	p.ExitAbsolute = math.Hypot(cr2, ex.ct2)
+	p.ExitRelative = math.Hypot(cr2, l.u2-ex.ct2)
+	p.ExitFlowAngle = math.Atan2(ex.ct2, cr2) * 180 / math.Pi
+	p.ExitAbsoluteMach = p.ExitAbsolute / float64(ex.static.SoundSpeed)
+	p.ExitFlowCoefficient = cr2 / l.u2
+	p.ExitStatic, p.ExitTotal = ex.static, ex.total
+	if !physics.Finite(p.WorkCoefficient, p.HeadCoefficient, p.ExitAbsolute, p.ExitFlowAngle, p.ExitAbsoluteMach,
+		p.InletRelativeMachShroud, p.InletAbsoluteMach, p.InletIncidence, float64(comp.Discharge.Pressure)) {
+		return Point{}, &physics.DomainError{Name: "flow", Value: mdot, Want: "a finite operating point"}
+	}
+	return p, nil
+}
+
+type exitState struct {
+	w, ct2        float64
+	total, static gas.State
+}
+
+// exitFixedPoint solves cr2 = ṁ/(ρ2(cr2) A2) at a fixed stage isentropic
+// efficiency etaS: secant steps on r(cr2) = F(cr2) − cr2 after two
+// substitutions.
+func (l *Line) exitFixedPoint(mdot, cr2, etaS, u1, ct1, tanB, psi, sigma float64) (exitState, float64, error) {
+	s, m, st := l.stage, l.model, l.suction
+	etaImp := 1 - s.ImpellerLossShare*(1-etaS)
+	eval := func(cr2 float64) (exitState, float64, error) {
+		var ex exitState
+		ex.ct2 = sigma*l.u2 - cr2*tanB
+		ex.w = psi * (l.u2*ex.ct2 - u1*ct1)
+		if !(ex.w > 0) {
+			return ex, 0, pastChoke(mdot, mdot, "impeller exit (no work is left at this flow)")
+		}
+		ideal, err := gas.StateFromHS(m, st.Enthalpy+physics.JoulePerKg(etaImp*ex.w), st.Entropy, st.Pressure)
+		if err != nil {
+			return ex, 0, fmt.Errorf("impeller exit total pressure: %w", err)
+		}
+		if ex.total, err = m.StateFromPH(ideal.Pressure, st.Enthalpy+physics.JoulePerKg(ex.w)); err != nil {
+			return ex, 0, fmt.Errorf("impeller exit total state: %w", err)
+		}
+		c2 := math.Hypot(cr2, ex.ct2)
+		if ex.static, err = gas.StaticState(m, ex.total, physics.MeterPerS(c2)); err != nil {
+			return ex, 0, pastChoke(mdot, mdot, "impeller exit")
+		}
+		return ex, mdot / (float64(ex.static.Density) * l.aExit), nil
+	}
+	var x0, r0 float64
+	have := false
+	x := cr2
+	for range 60 {
+		ex, next, err := eval(x)
+		if err != nil {
+			return ex, x, err
+		}
+		r := next - x
+		if math.Abs(r) <= 1e-13*x {
+			return ex, x, nil
+		}
+		step := next
+		if have && r != r0 {
+			if s := x - r*(x-x0)/(r-r0); s > 0 && s < 4*x {
+				step = s
+			}
+		}
+		x0, r0, have = x, r, true
+		x = step
+	}
+	return exitState{}, x, &physics.DomainError{Name: "flow", Value: mdot, Want: "a settled impeller exit",
+		Reason: "the impeller exit density did not settle at this flow and speed (the flow may be close to choke)"}
+}
+
+func (l *Line) passageName(p string) string {
+	switch p {
+	case ChokeEye:
+		return "impeller eye"
+	case ChokeDiffuserThroat:
+		return "vaned diffuser throat"
+	case ChokeInducerThroat:
+		return "inducer throat"
+	}
+	return p
+}
+
+// Surge returns the estimated surge mass flow of the line, kg/s: the flow
+// at which the absolute flow angle at the diffuser inlet reaches the
+// critical angle α2c (Design.SurgeFlowAngle, default 75 deg from radial;
+// Senoo & Kinoshita 1977, from memory). With tan α2 = cθ2/cr2 and
+// cθ2 = σU2 − cr2 tan β2' the critical exit velocity is
+// cr2c = σ U2 / (tan α2c + tan β2'), and the surge flow is the fixed
+// point ṁ = ρ2(ṁ) cr2c π D2 b2 (1 − B). It is an estimate: real surge
+// lines scatter by some ±10-15 % in flow about any such criterion.
+func (l *Line) Surge() (float64, error) {
+	s := l.stage
+	ac := s.Design.SurgeFlowAngle
+	if ac == 0 {
+		ac = DefaultSurgeFlowAngle
+	}
+	crc := s.SlipFactor * l.u2 / (math.Tan(rad(ac)) + math.Tan(rad(s.BladeExitAngle)))
+	mdot := crc * l.aExit * float64(l.suction.Density)
+	var prev *Point
+	for range 40 {
+		if mdot >= l.chokeFlow {
+			mdot = 0.98 * l.chokeFlow
+		}
+		p, err := l.AtFrom(mdot, prev)
+		if err != nil {
+			return 0, fmt.Errorf("surge estimate: %w", err)
+		}
+		next := float64(p.ExitStatic.Density) * crc * l.aExit
+		if math.Abs(next-mdot) <= 1e-10*mdot {
+			return next, nil
+		}
+		mdot, prev = next, &p
+	}
+	return mdot, nil
+}
+
+// Choke returns the choke mass flow of the line, kg/s, and the passage
+// that chokes: the inducer (see NewLine) or, for a vaned diffuser, its
+// throat, where the absolute flow from the impeller exit total state
+// reaches sonic speed: the fixed point ṁ = A_th (ρc)*(h02(ṁ), s02(ṁ))
+// (SonicFlux; Dixon & Hall 2014, ch. 1 and §7.11, vaned diffuser).
+func (l *Line) Choke() (float64, string, error) {
+	if l.stage.DiffuserThroatArea <= 0 {
+		return l.chokeFlow, l.chokePassage, nil
+	}
+	mdot := 0.9 * l.chokeFlow
+	var prev *Point
+	for range 40 {
+		p, err := l.AtFrom(mdot, prev)
+		if err != nil {
+			// The exit or diffuser fails before the inducer: take it as the
+			// diffuser choking below this flow.
+			mdot *= 0.95
+			prev = nil
+			continue
+		}
+		f, _, err := SonicFlux(l.model, p.ExitTotal)
+		if err != nil {
+			return 0, "", fmt.Errorf("diffuser choke: %w", err)
+		}
+		next := f * l.stage.DiffuserThroatArea
+		if next >= l.chokeFlow {
+			if mdot >= 0.999*l.chokeFlow {
+				return l.chokeFlow, l.chokePassage, nil
+			}
+			next = math.Min(next, 0.9999*l.chokeFlow)
+		}
+		if math.Abs(next-mdot) <= 1e-9*mdot {
+			return next, ChokeDiffuserThroat, nil
+		}
+		mdot, prev = next, &p
+	}
+	return mdot, ChokeDiffuserThroat, nil
+}
+
+// InletBladeAngle returns the inlet blade angle β1 (deg from meridional)
+// of a stage designed for zero incidence at mass flow mdot and speed n
+// from suction state suction: the relative flow angle
+// atan((U1 − cθ1)/cm1) at the rms eye radius (or D1), with cm1 from
+// continuity at the static inlet density. It stands in for the blade
+// angle of a machine whose datasheet does not give it (Dixon & Hall 2014,
+// §7.5; zero design incidence is common practice, no source).
+func InletBladeAngle(m gas.Model, suction gas.State, mdot float64, n physics.RevPerMin, s Stage) (float64, error) {
+	s.Inlet.BladeAngle = 0
+	if err := s.Check(); err != nil {
+		return 0, err
+	}
+	in := s.Inlet
+	cosA, tanA := math.Cos(rad(in.PrewhirlAngle)), math.Tan(rad(in.PrewhirlAngle))
+	fs, cs, err := SonicFlux(m, suction)
+	if err != nil {
+		return 0, err
+	}
+	_, c1, err := flowAt(m, suction, mdot/(s.inletArea()*cosA), float64(cs), fs)
+	if err != nil {
+		return 0, &physics.DomainError{Name: "design.volume_flow", Value: mdot, Reason: "the design flow chokes the inlet as built"}
+	}
+	cm1 := c1 * cosA
+	u1 := 2 * math.Pi * s.inletRadius() * float64(n) / 60
+	return math.Atan2(u1-cm1*tanA, cm1) * 180 / math.Pi, nil
+}
