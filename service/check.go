@@ -103,8 +103,11 @@ type Reason struct {
 // level; MarginBefore and MarginAfter the distance to the level as a
 // fraction of it, positive inside.
 type MarginChange struct {
-	Code                      string
-	Rule                      string
+	Code string
+	Rule string
+	// Stage is the stage (1-based) a per-stage limit rule grades; 0 for
+	// the machine's margins.
+	Stage                     int
 	Before, After, Limit      float64
 	Unit                      string
 	MarginBefore, MarginAfter float64
@@ -575,10 +578,16 @@ func judgeLimits(op *operated) {
 			Message: fmt.Sprintf("the shaft power (%.0f kW) exceeds the driver rating (%.0f kW)", p.ShaftPower/1e3, op.pt.DriverRating/1e3),
 			Value:   p.ShaftPower, Limit: op.pt.DriverRating})
 	}
-	for _, a := range op.pt.Limits {
-		if a.Severity == limits.Limit {
-			op.reasons = append(op.reasons, Reason{Code: a.Rule.Code, Unit: a.Rule.Unit, Message: a.Message(), Value: a.Value, Limit: a.Level})
+	stages := stagesOfAssessments(op.pt.Limits)
+	for i, a := range op.pt.Limits {
+		if a.Severity != limits.Limit || coveredRules[a.Rule.ID] {
+			continue
 		}
+		msg := a.Message()
+		if stages[i] > 0 && len(op.pt.Point.Stages) > 1 {
+			msg = "stage " + strconv.Itoa(stages[i]) + ": " + msg
+		}
+		op.reasons = append(op.reasons, Reason{Code: a.Rule.Code, Unit: a.Rule.Unit, Message: msg, Value: a.Value, Limit: a.Level})
 	}
 	switch {
 	case len(op.reasons) > 0:
@@ -590,6 +599,31 @@ func judgeLimits(op *operated) {
 	default:
 		op.verdict = CheckFits
 	}
+}
+
+// coveredRules are the rating's rules whose limits the check judges with
+// its own reasons (choke, speed range, driver overload) or settles by
+// recycle (surge): they stay in the margins but raise no second reason.
+var coveredRules = map[string]bool{"surge-margin": true, "choke-margin": true, "speed-above-range": true,
+	"speed-below-range": true, "driver-margin": true}
+
+// stagesOfAssessments returns the stage (1-based; 0 for the machine-level
+// rules) of each assessment of a rating: RateMachine lists each stage's
+// rules in flow order, every stage's first with the tip-speed rule, then
+// the machine's rules (surge, choke, speed range, driver).
+func stagesOfAssessments(as []limits.Assessment) []int {
+	out := make([]int, len(as))
+	k := 0
+	for i, a := range as {
+		switch {
+		case a.Rule.ID == "tip-speed":
+			k++
+		case coveredRules[a.Rule.ID]:
+			k = -1
+		}
+		out[i] = max(k, 0)
+	}
+	return out
 }
 
 // relMargin is the distance of v to the level as a fraction of it,
@@ -627,17 +661,23 @@ func marginsOf(b, a opPoint, control float64) []MarginChange {
 		MarginChange{Code: MarginDriver, Before: b.Point.ShaftPower, After: a.Point.ShaftPower, Limit: a.DriverRating, Unit: "W",
 			MarginBefore: relMargin(b.Point.ShaftPower, b.DriverRating, false), MarginAfter: relMargin(a.Point.ShaftPower, a.DriverRating, false)},
 	)
-	before := map[string]limits.Assessment{}
-	for _, l := range b.Limits {
-		before[l.Rule.ID] = l
+	// The same machine lists the same rules in the same order at both
+	// points; pair them by stage and rule.
+	type key struct {
+		stage int
+		id    string
 	}
-	for _, l := range a.Limits {
-		bl, ok := before[l.Rule.ID]
+	before := map[key]limits.Assessment{}
+	for i, st := range stagesOfAssessments(b.Limits) {
+		before[key{st, b.Limits[i].Rule.ID}] = b.Limits[i]
+	}
+	for i, st := range stagesOfAssessments(a.Limits) {
+		l := a.Limits[i]
+		bl, ok := before[key{st, l.Rule.ID}]
 		if !ok {
 			continue
 		}
-		code := l.Rule.Code
-		out = append(out, MarginChange{Code: code, Rule: l.Rule.ID, Before: bl.Value, After: l.Value, Limit: l.Rule.Warning, Unit: l.Rule.Unit,
+		out = append(out, MarginChange{Code: l.Rule.Code, Rule: l.Rule.ID, Stage: st, Before: bl.Value, After: l.Value, Limit: l.Rule.Warning, Unit: l.Rule.Unit,
 			MarginBefore: bl.Margin, MarginAfter: l.Margin, Severity: string(l.Severity)})
 	}
 	return out
@@ -682,6 +722,8 @@ func changesOf(bd, ad CheckDuty, bo, ao operated, margins []MarginChange) []Chan
 	// The duty's own flow: the machine's flow less any recycle.
 	add("flow.mass", bo.processMass, ao.processMass, "kg/s", nil)
 	add("flow.actual_volume", bo.processVolume, ao.processVolume, "m3/s", nil)
+	// A quantity's margin: the operating margins, and the discharge
+	// temperature rule of the last stage (the machine's discharge).
 	byCode := map[string]MarginChange{}
 	for _, m := range margins {
 		if m.Rule == "" || m.Rule == m.Code {
