@@ -152,10 +152,13 @@ type Throttling struct {
 	SuctionPressure, PressureDrop float64
 	// ShaftPower at the throttled point, W.
 	ShaftPower float64
-	// RecycleMassFlow is the alternative: the recycle at minimum speed that
-	// moves the compressor down to the discharge pressure (0: not found).
-	RecycleMassFlow   float64
-	RecycleShaftPower float64
+	// RecycleMassFlow is the recycle that holds the throttled compressor
+	// on the surge control line (0: the throttling alone is right of it).
+	RecycleMassFlow float64
+	// AlternativeRecycleMassFlow is the recycle alone (no throttle) at the
+	// minimum speed that brings the discharge down to the duty's, with its
+	// shaft power (0: none right of the control line and short of choke).
+	AlternativeRecycleMassFlow, AlternativeShaftPower float64
 }
 
 // SimilarityCheck is one PTC 10 similarity quantity, baseline against
@@ -259,8 +262,10 @@ type opPoint struct {
 type rateQuery struct {
 	Duty CheckDuty
 	// FlowScale multiplies the duty's flow (0: 1).
-	FlowScale       float64
-	MassFlow        float64
+	FlowScale float64
+	MassFlow  float64
+	// VolumeFlow (> 0) is an actual volume flow at the (throttled) suction.
+	VolumeFlow      float64
 	SuctionPressure float64
 	Speed           float64
 }
@@ -297,6 +302,16 @@ func operate(ctx context.Context, rate rateFunc, d, design CheckDuty, designSpee
 		return beyondReach(ctx, rate, d, design, designSpeed, control)
 	}
 	op.processMass, op.processVolume = pt.Point.MassFlow, pt.Point.VolumeFlow
+	if pt.Point.Speed >= pt.MinSpeed*(1-1e-9) && !rightOfControl(pt.Point, control) {
+		// Left of the control line: the machine runs on it with the recycle,
+		// at the speed that makes the discharge pressure there.
+		op.pt = pt
+		if err := recycle(ctx, rate, d, &op, control); err != nil {
+			return op, err
+		}
+		judgeLimits(&op)
+		return op, nil
+	}
 	switch {
 	case pt.Point.Speed > pt.MaxSpeed*(1+1e-9):
 		op.pt = pt
@@ -324,11 +339,6 @@ func operate(ctx context.Context, rate rateFunc, d, design CheckDuty, designSpee
 		return op, err
 	}
 	op.pt = pt
-	if pt.Point.SurgeFlow > 0 && pt.Point.VolumeFlow < (1+control)*pt.Point.SurgeFlow {
-		if err := recycle(ctx, rate, d, &op, control); err != nil {
-			return op, err
-		}
-	}
 	judgeLimits(&op)
 	return op, nil
 }
@@ -448,108 +458,126 @@ func recycle(ctx context.Context, rate rateFunc, d CheckDuty, op *operated, cont
 		ShaftPower: at.Point.ShaftPower,
 		Basis:      "recycle from discharge to suction through the anti-surge valve, cooled back to the suction temperature; the compressor runs on the control line at the speed that makes the discharge pressure there",
 	}
-	if at.Point.Speed > at.MaxSpeed*(1+1e-9) {
+	switch {
+	case at.Point.Speed > at.MaxSpeed*(1+1e-9):
 		op.reasons = append(op.reasons, Reason{Code: ReasonSpeedAboveMaximum, Unit: "rev/min",
 			Message: fmt.Sprintf("with the recycle on the control line the duty needs %.0f rev/min, above the maximum continuous speed of %.0f rev/min", at.Point.Speed, at.MaxSpeed),
 			Value:   at.Point.Speed, Limit: at.MaxSpeed})
+	case at.Point.Speed < at.MinSpeed*(1-1e-9):
+		op.reasons = append(op.reasons, Reason{Code: ReasonSpeedBelowMinimum, Unit: "rev/min",
+			Message: fmt.Sprintf("with the recycle on the control line the duty needs %.0f rev/min, below the minimum speed of %.0f rev/min", at.Point.Speed, at.MinSpeed),
+			Value:   at.Point.Speed, Limit: at.MinSpeed})
 	}
 	return nil
 }
 
-// throttle handles a duty whose speed would fall below the minimum: at the
-// minimum speed the machine makes more than the discharge pressure, so the
-// suction is throttled until it makes just that (secant on the throttled
-// suction pressure at the duty's mass flow); the recycle that does the same
-// at the minimum speed is reported as the alternative.
-func throttle(ctx context.Context, rate rateFunc, d CheckDuty, atMin opPoint, control float64) (operated, error) {
-	op := operated{pt: atMin}
-	mdot := atMin.Point.MassFlow
-	p1 := d.SuctionPressure
-	nmin := atMin.MinSpeed
-	f := func(ps float64) (opPoint, float64, error) {
-		pt, err := rate(ctx, rateQuery{Duty: d, MassFlow: mdot, SuctionPressure: ps, Speed: nmin})
-		if err != nil {
-			return pt, 0, err
-		}
-		return pt, pt.Point.DischargePressure - d.DischargePressure, nil
-	}
-	x0, f0 := p1, atMin.Point.DischargePressure-d.DischargePressure
-	x1 := p1 * d.DischargePressure / atMin.Point.DischargePressure
-	pt1, f1, err := f(x1)
-	var found *opPoint
-	for i := 0; i < 40; i++ {
-		if errors.Is(err, ErrChoked) && x0 > x1 {
-			// Throttled too far: the flow chokes. Step back towards x0.
+// secantRoot finds x with f(x) = 0 by the secant method from x0 (where
+// f is f0) and x1, each step clamped to [lo, hi]; a choked point (ErrChoked)
+// steps back halfway towards the previous x. It returns the point at the
+// root, or ok = false.
+func secantRoot(f func(x float64) (opPoint, float64, error), x0, f0, x1, lo, hi, tol float64) (opPoint, float64, bool, error) {
+	pt, f1, err := f(x1)
+	for range 40 {
+		if errors.Is(err, ErrChoked) {
 			x1 = 0.5 * (x0 + x1)
-			pt1, f1, err = f(x1)
+			pt, f1, err = f(x1)
 			continue
 		}
 		if err != nil {
-			break
+			var ie *InputError
+			if errors.Is(err, ErrSpeedOutOfReach) || errors.As(err, &ie) {
+				return pt, x1, false, nil
+			}
+			return pt, x1, false, err
 		}
-		if math.Abs(f1) <= 1e-7*d.DischargePressure {
-			found = &pt1
-			break
+		if math.Abs(f1) <= tol {
+			return pt, x1, true, nil
 		}
 		if f1 == f0 {
-			break
+			return pt, x1, false, nil
 		}
-		x2 := x1 - f1*(x1-x0)/(f1-f0)
-		x2 = math.Min(math.Max(x2, 0.2*x1), math.Min(p1, 5*x1))
-		x0, f0 = x1, f1
-		x1 = x2
-		pt1, f1, err = f(x1)
+		x2 := math.Min(math.Max(x1-f1*(x1-x0)/(f1-f0), lo), hi)
+		x0, f0, x1 = x1, f1, x2
+		pt, f1, err = f(x1)
 	}
-	if err != nil && !errors.Is(err, ErrSpeedOutOfReach) && !errors.Is(err, ErrChoked) {
-		var ie *InputError
-		if !errors.As(err, &ie) {
+	return pt, x1, false, nil
+}
+
+// rightOfControl reports whether a point lies on or right of the surge
+// control line (or has no surge estimate).
+func rightOfControl(p CheckPoint, control float64) bool {
+	return !(p.SurgeFlow > 0) || p.VolumeFlow >= (1+control)*p.SurgeFlow*(1-1e-6)
+}
+
+// throttle handles a duty whose speed would fall below the minimum: at the
+// minimum speed the machine makes more than the discharge pressure. In
+// order: the suction throttled until the machine makes just that (secant
+// on the throttled suction pressure at the duty's mass flow), when that
+// point lies right of the surge control line; else the suction throttled
+// with the recycle holding the compressor on the control line. The recycle
+// alone at the minimum speed (no throttle) is reported as the alternative
+// when it lies right of the control line and short of choke.
+func throttle(ctx context.Context, rate rateFunc, d CheckDuty, atMin opPoint, control float64) (operated, error) {
+	op := operated{pt: atMin}
+	mdot := atMin.Point.MassFlow
+	p1, p2 := d.SuctionPressure, d.DischargePressure
+	nmin := atMin.MinSpeed
+	tol := 1e-7 * p2
+	excess := atMin.Point.DischargePressure - p2
+	throttled := func(q func(ps float64) rateQuery) func(float64) (opPoint, float64, error) {
+		return func(ps float64) (opPoint, float64, error) {
+			pt, err := rate(ctx, q(ps))
+			if err != nil {
+				return pt, 0, err
+			}
+			return pt, pt.Point.DischargePressure - p2, nil
+		}
+	}
+	first := p1 * p2 / atMin.Point.DischargePressure
+	pt, ps, ok, err := secantRoot(throttled(func(ps float64) rateQuery {
+		return rateQuery{Duty: d, MassFlow: mdot, SuctionPressure: ps, Speed: nmin}
+	}), p1, excess, first, 0.05*p1, p1, tol)
+	if err != nil {
+		return op, err
+	}
+	if ok && !rightOfControl(pt.Point, control) {
+		// Throttle with the recycle on the control line: the compressor's
+		// volume flow at its (throttled) suction is the control flow.
+		qc := (1 + control) * pt.Point.SurgeFlow
+		pt, ps, ok, err = secantRoot(throttled(func(ps float64) rateQuery {
+			return rateQuery{Duty: d, VolumeFlow: qc, SuctionPressure: ps, Speed: nmin}
+		}), p1, excess, first, 0.05*p1, p1, tol)
+		if err != nil {
 			return op, err
 		}
+		ok = ok && pt.Point.MassFlow >= mdot*(1-1e-9) && rightOfControl(pt.Point, control)
 	}
-	if found == nil {
+	if !ok {
 		op.reasons = append(op.reasons, Reason{Code: ReasonSpeedBelowMinimum, Unit: "Pa",
-			Message: fmt.Sprintf("even at the minimum speed (%.0f rev/min) the machine makes %.0f kPa, more than the %.0f kPa the duty needs, and no suction throttling found brings it down",
-				nmin, atMin.Point.DischargePressure/1e3, d.DischargePressure/1e3),
-			Value: atMin.Point.DischargePressure, Limit: d.DischargePressure})
+			Message: fmt.Sprintf("even at the minimum speed (%.0f rev/min) the machine makes %.0f kPa, more than the %.0f kPa the duty needs, and no suction throttling (with recycle on the surge control line) found brings it down",
+				nmin, atMin.Point.DischargePressure/1e3, p2/1e3),
+			Value: atMin.Point.DischargePressure, Limit: p2})
 		judgeLimits(&op)
 		return op, nil
 	}
-	op.pt = *found
-	op.throttling = &Throttling{Speed: nmin, SuctionPressure: x1, PressureDrop: p1 - x1, ShaftPower: found.Point.ShaftPower}
-	// The alternative: recycle at the minimum speed, a secant on the
+	op.pt = pt
+	op.throttling = &Throttling{Speed: nmin, SuctionPressure: ps, PressureDrop: p1 - ps, ShaftPower: pt.Point.ShaftPower,
+		RecycleMassFlow: math.Max(pt.Point.MassFlow-mdot, 0)}
+	// The alternative: recycle alone at the minimum speed, a secant on the
 	// compressor's mass flow at the duty's own suction.
-	g := func(m float64) (opPoint, float64, error) {
+	alt, _, ok, err := secantRoot(func(m float64) (opPoint, float64, error) {
 		pt, err := rate(ctx, rateQuery{Duty: d, MassFlow: m, Speed: nmin})
 		if err != nil {
 			return pt, 0, err
 		}
-		return pt, pt.Point.DischargePressure - d.DischargePressure, nil
+		return pt, pt.Point.DischargePressure - p2, nil
+	}, mdot, excess, 1.1*mdot, mdot, 4*mdot, tol)
+	if err != nil {
+		return op, err
 	}
-	m0, g0 := mdot, atMin.Point.DischargePressure-d.DischargePressure
-	m1 := mdot * 1.1
-	r1, g1, err := g(m1)
-	for i := 0; err == nil && i < 30; i++ {
-		if math.Abs(g1) <= 1e-7*d.DischargePressure {
-			if r1.Point.ChokeFlow > 0 && r1.Point.ChokeMargin < 0 {
-				break // past choke: no recycle alternative
-			}
-			op.throttling.RecycleMassFlow = m1 - mdot
-			op.throttling.RecycleShaftPower = r1.Point.ShaftPower
-			break
-		}
-		if g1 == g0 {
-			break
-		}
-		m2 := m1 - g1*(m1-m0)/(g1-g0)
-		m2 = math.Min(math.Max(m2, mdot), 4*mdot)
-		m0, g0 = m1, g1
-		m1 = m2
-		r1, g1, err = g(m1)
-	}
-	if found.Point.SurgeFlow > 0 && found.Point.VolumeFlow < (1+control)*found.Point.SurgeFlow {
-		op.reasons = append(op.reasons, Reason{Code: ReasonSurge, Unit: "m3/s",
-			Message: "the throttled point lies left of the surge control line at the minimum speed",
-			Value:   found.Point.VolumeFlow, Limit: (1 + control) * found.Point.SurgeFlow})
+	if ok && rightOfControl(alt.Point, control) && !(alt.Point.ChokeFlow > 0 && alt.Point.ChokeMargin < 0) {
+		op.throttling.AlternativeRecycleMassFlow = alt.Point.MassFlow - mdot
+		op.throttling.AlternativeShaftPower = alt.Point.ShaftPower
 	}
 	judgeLimits(&op)
 	return op, nil

@@ -49,6 +49,8 @@ func (tm *toyMachine) rate(_ context.Context, q rateQuery) (opPoint, error) {
 	switch {
 	case q.MassFlow > 0:
 		mdot = q.MassFlow
+	case q.VolumeFlow > 0:
+		mdot = q.VolumeFlow * rho
 	case d.MassFlow != nil:
 		mdot = *d.MassFlow
 	default:
@@ -184,7 +186,7 @@ func TestCheckJudgingThrottling(t *testing.T) {
 	assert.InEpsilon(t, d.DischargePressure, res.OperatingPoint.DischargePressure, 1e-6)
 	assert.Less(t, res.Throttling.SuctionPressure, d.SuctionPressure)
 	assert.InEpsilon(t, d.SuctionPressure-res.Throttling.SuctionPressure, res.Throttling.PressureDrop, 1e-9)
-	assert.Greater(t, res.Throttling.RecycleMassFlow, 0.0)
+	assert.Greater(t, res.Throttling.AlternativeRecycleMassFlow, 0.0)
 }
 
 func TestCheckJudgingDriverOverload(t *testing.T) {

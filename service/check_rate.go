@@ -30,9 +30,13 @@ func (s *Service) rateFor(m Machine) rateFunc {
 			return &v
 		}
 		rd.MassFlow, rd.ActualVolumeFlow, rd.StandardVolumeFlow = scale(rd.MassFlow), scale(rd.ActualVolumeFlow), scale(rd.StandardVolumeFlow)
-		if q.MassFlow > 0 {
+		switch {
+		case q.MassFlow > 0:
 			mf := q.MassFlow
 			rd.MassFlow, rd.ActualVolumeFlow, rd.StandardVolumeFlow, rd.StandardReference = &mf, nil, nil, ""
+		case q.VolumeFlow > 0:
+			v := q.VolumeFlow
+			rd.MassFlow, rd.ActualVolumeFlow, rd.StandardVolumeFlow, rd.StandardReference = nil, &v, nil, ""
 		}
 		if q.SuctionPressure > 0 {
 			rd.SuctionPressure = q.SuctionPressure
