@@ -367,6 +367,7 @@ func TestContractSeesEveryRoute(t *testing.T) {
 	require.ElementsMatch(t, []string{
 		"GET /healthz", "GET /readyz", "GET /version", "GET /metrics", "POST /v1/stage/size", "POST /v1/stage/size/batch",
 		"POST /v1/gas/properties", "GET /v1/gas/components",
+		"POST /v1/section/size",
 	}, ops)
 	err := exchange(k, fakeServer(200, "text/plain", "ok"), http.MethodGet, "/healthz", "")
 	require.ErrorContains(t, err, "response 200")

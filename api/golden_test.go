@@ -58,6 +58,11 @@ func TestGoldenProblems(t *testing.T) {
 }
 
 func runGoldens(t *testing.T, dir string, check func(t *testing.T, code int, body []byte)) {
+	runGoldensAt(t, dir, "/v1/stage/size", check)
+}
+
+// runGoldensAt is runGoldens for the route target.
+func runGoldensAt(t *testing.T, dir, target string, check func(t *testing.T, code int, body []byte)) {
 	inputs, err := filepath.Glob(filepath.Join(dir, "*.in.json"))
 	require.NoError(t, err)
 	require.NotEmpty(t, inputs, "no golden inputs in %s", dir)
@@ -67,7 +72,7 @@ func runGoldens(t *testing.T, dir string, check func(t *testing.T, code int, bod
 		t.Run(name, func(t *testing.T) {
 			body, err := os.ReadFile(in)
 			require.NoError(t, err)
-			w := postStage(h, string(body))
+			w := do(h, http.MethodPost, target, string(body))
 			check(t, w.Code, w.Body.Bytes())
 			got := withoutRequestID(t, w)
 			goldenPath := filepath.Join(dir, name+".golden.json")

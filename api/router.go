@@ -16,6 +16,7 @@ import (
 // Services are the use cases the router serves.
 type Services interface {
 	StageSizer
+	SectionSizer
 	GasPropertyService
 }
 
@@ -122,13 +123,14 @@ func NewRouter(svc Services, opts Options) (*gin.Engine, error) {
 	if opts.ComputeTimeout > 0 {
 		v1.Use(computeDeadline(opts.ComputeTimeout))
 	}
-	dec := newRequestDecoder(StageRequest{}, BatchRequest{}, PropertiesRequest{})
+	dec := newRequestDecoder(StageRequest{}, BatchRequest{}, PropertiesRequest{}, SectionRequest{})
 	st := stageHandler{svc: svc, decoder: dec, log: log}
 	v1.POST("/stage/size", st.size)
 	v1.POST("/stage/size/batch", st.sizeBatch)
 	gh := gasHandler{svc: svc, decoder: dec, log: log}
 	v1.POST("/gas/properties", gh.properties)
 	v1.GET("/gas/components", gh.components)
+	v1.POST("/section/size", sectionHandler{svc: svc, decoder: dec, log: log}.size)
 	return r, nil
 }
 

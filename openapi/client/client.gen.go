@@ -36,16 +36,16 @@ func (e ApiCpRangeOutForm) Valid() bool {
 
 // Defines values for ApiDiffuserSpecType.
 const (
-	Vaned    ApiDiffuserSpecType = "vaned"
-	Vaneless ApiDiffuserSpecType = "vaneless"
+	ApiDiffuserSpecTypeVaned    ApiDiffuserSpecType = "vaned"
+	ApiDiffuserSpecTypeVaneless ApiDiffuserSpecType = "vaneless"
 )
 
 // Valid indicates whether the value is a known member of the ApiDiffuserSpecType enum.
 func (e ApiDiffuserSpecType) Valid() bool {
 	switch e {
-	case Vaned:
+	case ApiDiffuserSpecTypeVaned:
 		return true
-	case Vaneless:
+	case ApiDiffuserSpecTypeVaneless:
 		return true
 	default:
 		return false
@@ -138,22 +138,22 @@ func (e ApiGasSpecService) Valid() bool {
 
 // Defines values for ApiImpellerSpecConstruction.
 const (
-	ClosedSteel   ApiImpellerSpecConstruction = "closed-steel"
-	OpenAluminium ApiImpellerSpecConstruction = "open-aluminium"
-	OpenSteel     ApiImpellerSpecConstruction = "open-steel"
-	OpenTitanium  ApiImpellerSpecConstruction = "open-titanium"
+	ApiImpellerSpecConstructionClosedSteel   ApiImpellerSpecConstruction = "closed-steel"
+	ApiImpellerSpecConstructionOpenAluminium ApiImpellerSpecConstruction = "open-aluminium"
+	ApiImpellerSpecConstructionOpenSteel     ApiImpellerSpecConstruction = "open-steel"
+	ApiImpellerSpecConstructionOpenTitanium  ApiImpellerSpecConstruction = "open-titanium"
 )
 
 // Valid indicates whether the value is a known member of the ApiImpellerSpecConstruction enum.
 func (e ApiImpellerSpecConstruction) Valid() bool {
 	switch e {
-	case ClosedSteel:
+	case ApiImpellerSpecConstructionClosedSteel:
 		return true
-	case OpenAluminium:
+	case ApiImpellerSpecConstructionOpenAluminium:
 		return true
-	case OpenSteel:
+	case ApiImpellerSpecConstructionOpenSteel:
 		return true
-	case OpenTitanium:
+	case ApiImpellerSpecConstructionOpenTitanium:
 		return true
 	default:
 		return false
@@ -162,19 +162,19 @@ func (e ApiImpellerSpecConstruction) Valid() bool {
 
 // Defines values for ApiImpellerSpecSlipModel.
 const (
-	Stanitz ApiImpellerSpecSlipModel = "stanitz"
-	Stodola ApiImpellerSpecSlipModel = "stodola"
-	Wiesner ApiImpellerSpecSlipModel = "wiesner"
+	ApiImpellerSpecSlipModelStanitz ApiImpellerSpecSlipModel = "stanitz"
+	ApiImpellerSpecSlipModelStodola ApiImpellerSpecSlipModel = "stodola"
+	ApiImpellerSpecSlipModelWiesner ApiImpellerSpecSlipModel = "wiesner"
 )
 
 // Valid indicates whether the value is a known member of the ApiImpellerSpecSlipModel enum.
 func (e ApiImpellerSpecSlipModel) Valid() bool {
 	switch e {
-	case Stanitz:
+	case ApiImpellerSpecSlipModelStanitz:
 		return true
-	case Stodola:
+	case ApiImpellerSpecSlipModelStodola:
 		return true
-	case Wiesner:
+	case ApiImpellerSpecSlipModelWiesner:
 		return true
 	default:
 		return false
@@ -204,16 +204,16 @@ func (e ApiInducerOutEyeChoice) Valid() bool {
 
 // Defines values for ApiInletSpecType.
 const (
-	AxialEye ApiInletSpecType = "axial-eye"
-	Radial   ApiInletSpecType = "radial"
+	ApiInletSpecTypeAxialEye ApiInletSpecType = "axial-eye"
+	ApiInletSpecTypeRadial   ApiInletSpecType = "radial"
 )
 
 // Valid indicates whether the value is a known member of the ApiInletSpecType enum.
 func (e ApiInletSpecType) Valid() bool {
 	switch e {
-	case AxialEye:
+	case ApiInletSpecTypeAxialEye:
 		return true
-	case Radial:
+	case ApiInletSpecTypeRadial:
 		return true
 	default:
 		return false
@@ -238,6 +238,108 @@ func (e ApiLimitOutSeverity) Valid() bool {
 	case ApiLimitOutSeverityOk:
 		return true
 	case ApiLimitOutSeverityWarning:
+		return true
+	default:
+		return false
+	}
+}
+
+// Defines values for ApiMachineDiffuserSpecType.
+const (
+	ApiMachineDiffuserSpecTypeVaned    ApiMachineDiffuserSpecType = "vaned"
+	ApiMachineDiffuserSpecTypeVaneless ApiMachineDiffuserSpecType = "vaneless"
+)
+
+// Valid indicates whether the value is a known member of the ApiMachineDiffuserSpecType enum.
+func (e ApiMachineDiffuserSpecType) Valid() bool {
+	switch e {
+	case ApiMachineDiffuserSpecTypeVaned:
+		return true
+	case ApiMachineDiffuserSpecTypeVaneless:
+		return true
+	default:
+		return false
+	}
+}
+
+// Defines values for ApiMachineInletSpecType.
+const (
+	ApiMachineInletSpecTypeAxialEye ApiMachineInletSpecType = "axial-eye"
+	ApiMachineInletSpecTypeRadial   ApiMachineInletSpecType = "radial"
+)
+
+// Valid indicates whether the value is a known member of the ApiMachineInletSpecType enum.
+func (e ApiMachineInletSpecType) Valid() bool {
+	switch e {
+	case ApiMachineInletSpecTypeAxialEye:
+		return true
+	case ApiMachineInletSpecTypeRadial:
+		return true
+	default:
+		return false
+	}
+}
+
+// Defines values for ApiMachineSpecArrangement.
+const (
+	ApiMachineSpecArrangementGeared ApiMachineSpecArrangement = "geared"
+	ApiMachineSpecArrangementInline ApiMachineSpecArrangement = "inline"
+	ApiMachineSpecArrangementSingle ApiMachineSpecArrangement = "single"
+)
+
+// Valid indicates whether the value is a known member of the ApiMachineSpecArrangement enum.
+func (e ApiMachineSpecArrangement) Valid() bool {
+	switch e {
+	case ApiMachineSpecArrangementGeared:
+		return true
+	case ApiMachineSpecArrangementInline:
+		return true
+	case ApiMachineSpecArrangementSingle:
+		return true
+	default:
+		return false
+	}
+}
+
+// Defines values for ApiMachineStageSpecConstruction.
+const (
+	ApiMachineStageSpecConstructionClosedSteel   ApiMachineStageSpecConstruction = "closed-steel"
+	ApiMachineStageSpecConstructionOpenAluminium ApiMachineStageSpecConstruction = "open-aluminium"
+	ApiMachineStageSpecConstructionOpenSteel     ApiMachineStageSpecConstruction = "open-steel"
+	ApiMachineStageSpecConstructionOpenTitanium  ApiMachineStageSpecConstruction = "open-titanium"
+)
+
+// Valid indicates whether the value is a known member of the ApiMachineStageSpecConstruction enum.
+func (e ApiMachineStageSpecConstruction) Valid() bool {
+	switch e {
+	case ApiMachineStageSpecConstructionClosedSteel:
+		return true
+	case ApiMachineStageSpecConstructionOpenAluminium:
+		return true
+	case ApiMachineStageSpecConstructionOpenSteel:
+		return true
+	case ApiMachineStageSpecConstructionOpenTitanium:
+		return true
+	default:
+		return false
+	}
+}
+
+// Defines values for ApiMachineStageSpecSlipModel.
+const (
+	ApiMachineStageSpecSlipModelStanitz ApiMachineStageSpecSlipModel = "stanitz"
+	ApiMachineStageSpecSlipModelStodola ApiMachineStageSpecSlipModel = "stodola"
+	ApiMachineStageSpecSlipModelWiesner ApiMachineStageSpecSlipModel = "wiesner"
+)
+
+// Valid indicates whether the value is a known member of the ApiMachineStageSpecSlipModel enum.
+func (e ApiMachineStageSpecSlipModel) Valid() bool {
+	switch e {
+	case ApiMachineStageSpecSlipModelStanitz:
+		return true
+	case ApiMachineStageSpecSlipModelStodola:
+		return true
+	case ApiMachineStageSpecSlipModelWiesner:
 		return true
 	default:
 		return false
@@ -304,24 +406,123 @@ func (e ApiPropertiesResponsePhase) Valid() bool {
 	}
 }
 
+// Defines values for ApiSectionRequestArrangement.
+const (
+	ApiSectionRequestArrangementGeared ApiSectionRequestArrangement = "geared"
+	ApiSectionRequestArrangementInline ApiSectionRequestArrangement = "inline"
+)
+
+// Valid indicates whether the value is a known member of the ApiSectionRequestArrangement enum.
+func (e ApiSectionRequestArrangement) Valid() bool {
+	switch e {
+	case ApiSectionRequestArrangementGeared:
+		return true
+	case ApiSectionRequestArrangementInline:
+		return true
+	default:
+		return false
+	}
+}
+
+// Defines values for ApiSectionResponseArrangement.
+const (
+	ApiSectionResponseArrangementGeared ApiSectionResponseArrangement = "geared"
+	ApiSectionResponseArrangementInline ApiSectionResponseArrangement = "inline"
+)
+
+// Valid indicates whether the value is a known member of the ApiSectionResponseArrangement enum.
+func (e ApiSectionResponseArrangement) Valid() bool {
+	switch e {
+	case ApiSectionResponseArrangementGeared:
+		return true
+	case ApiSectionResponseArrangementInline:
+		return true
+	default:
+		return false
+	}
+}
+
+// Defines values for ApiSectionResponseStageCountBasis.
+const (
+	ApiSectionResponseStageCountBasisChosen ApiSectionResponseStageCountBasis = "chosen"
+	ApiSectionResponseStageCountBasisGiven  ApiSectionResponseStageCountBasis = "given"
+)
+
+// Valid indicates whether the value is a known member of the ApiSectionResponseStageCountBasis enum.
+func (e ApiSectionResponseStageCountBasis) Valid() bool {
+	switch e {
+	case ApiSectionResponseStageCountBasisChosen:
+		return true
+	case ApiSectionResponseStageCountBasisGiven:
+		return true
+	default:
+		return false
+	}
+}
+
+// Defines values for ApiSectionResponseVerdict.
+const (
+	ApiSectionResponseVerdictNearLimits   ApiSectionResponseVerdict = "near-limits"
+	ApiSectionResponseVerdictPastLimit    ApiSectionResponseVerdict = "past-limit"
+	ApiSectionResponseVerdictPastWarning  ApiSectionResponseVerdict = "past-warning"
+	ApiSectionResponseVerdictWithinLimits ApiSectionResponseVerdict = "within-limits"
+)
+
+// Valid indicates whether the value is a known member of the ApiSectionResponseVerdict enum.
+func (e ApiSectionResponseVerdict) Valid() bool {
+	switch e {
+	case ApiSectionResponseVerdictNearLimits:
+		return true
+	case ApiSectionResponseVerdictPastLimit:
+		return true
+	case ApiSectionResponseVerdictPastWarning:
+		return true
+	case ApiSectionResponseVerdictWithinLimits:
+		return true
+	default:
+		return false
+	}
+}
+
+// Defines values for ApiSectionWarningOutSeverity.
+const (
+	ApiSectionWarningOutSeverityLimit   ApiSectionWarningOutSeverity = "limit"
+	ApiSectionWarningOutSeverityNotice  ApiSectionWarningOutSeverity = "notice"
+	ApiSectionWarningOutSeverityWarning ApiSectionWarningOutSeverity = "warning"
+)
+
+// Valid indicates whether the value is a known member of the ApiSectionWarningOutSeverity enum.
+func (e ApiSectionWarningOutSeverity) Valid() bool {
+	switch e {
+	case ApiSectionWarningOutSeverityLimit:
+		return true
+	case ApiSectionWarningOutSeverityNotice:
+		return true
+	case ApiSectionWarningOutSeverityWarning:
+		return true
+	default:
+		return false
+	}
+}
+
 // Defines values for ApiSpeedChoiceOutBasis.
 const (
-	FlowCoefficient ApiSpeedChoiceOutBasis = "flow-coefficient"
-	Given           ApiSpeedChoiceOutBasis = "given"
-	SpecificSpeed   ApiSpeedChoiceOutBasis = "specific-speed"
-	TipDiameter     ApiSpeedChoiceOutBasis = "tip-diameter"
+	ApiSpeedChoiceOutBasisFlowCoefficient ApiSpeedChoiceOutBasis = "flow-coefficient"
+	ApiSpeedChoiceOutBasisGiven           ApiSpeedChoiceOutBasis = "given"
+	ApiSpeedChoiceOutBasisSpecificSpeed   ApiSpeedChoiceOutBasis = "specific-speed"
+	ApiSpeedChoiceOutBasisTipDiameter     ApiSpeedChoiceOutBasis = "tip-diameter"
 )
 
 // Valid indicates whether the value is a known member of the ApiSpeedChoiceOutBasis enum.
 func (e ApiSpeedChoiceOutBasis) Valid() bool {
 	switch e {
-	case FlowCoefficient:
+	case ApiSpeedChoiceOutBasisFlowCoefficient:
 		return true
-	case Given:
+	case ApiSpeedChoiceOutBasisGiven:
 		return true
-	case SpecificSpeed:
+	case ApiSpeedChoiceOutBasisSpecificSpeed:
 		return true
-	case TipDiameter:
+	case ApiSpeedChoiceOutBasisTipDiameter:
 		return true
 	default:
 		return false
@@ -330,22 +531,22 @@ func (e ApiSpeedChoiceOutBasis) Valid() bool {
 
 // Defines values for ApiStageResponseVerdict.
 const (
-	NearLimits   ApiStageResponseVerdict = "near-limits"
-	PastLimit    ApiStageResponseVerdict = "past-limit"
-	PastWarning  ApiStageResponseVerdict = "past-warning"
-	WithinLimits ApiStageResponseVerdict = "within-limits"
+	ApiStageResponseVerdictNearLimits   ApiStageResponseVerdict = "near-limits"
+	ApiStageResponseVerdictPastLimit    ApiStageResponseVerdict = "past-limit"
+	ApiStageResponseVerdictPastWarning  ApiStageResponseVerdict = "past-warning"
+	ApiStageResponseVerdictWithinLimits ApiStageResponseVerdict = "within-limits"
 )
 
 // Valid indicates whether the value is a known member of the ApiStageResponseVerdict enum.
 func (e ApiStageResponseVerdict) Valid() bool {
 	switch e {
-	case NearLimits:
+	case ApiStageResponseVerdictNearLimits:
 		return true
-	case PastLimit:
+	case ApiStageResponseVerdictPastLimit:
 		return true
-	case PastWarning:
+	case ApiStageResponseVerdictPastWarning:
 		return true
-	case WithinLimits:
+	case ApiStageResponseVerdictWithinLimits:
 		return true
 	default:
 		return false
@@ -515,6 +716,93 @@ type ApiDefaultOut struct {
 
 	// Value Example: 0.98
 	Value string `json:"value"`
+}
+
+// ApiDesignPointSpec defines model for api.DesignPointSpec.
+type ApiDesignPointSpec struct {
+	// DischargePressure DischargePressure is the stage's design discharge total pressure, Pa absolute.
+	DischargePressure *ApiDesignPointSpec_DischargePressure `json:"discharge_pressure,omitempty"`
+
+	// FlowCoefficient FlowCoefficient is φ = Q01/(U2 π D2²/4) at design.
+	//
+	// Example: 0.09
+	FlowCoefficient *float64 `json:"flow_coefficient,omitempty"`
+
+	// Gas Gas is the gas the stage was sized for.
+	Gas ApiGasSpec `json:"gas"`
+
+	// MassFlow MassFlow is the design mass flow, kg/s.
+	//
+	// Example: 4.1
+	MassFlow *float64 `json:"mass_flow,omitempty"`
+
+	// PolytropicEfficiency PolytropicEfficiency is the design total-to-total polytropic efficiency.
+	//
+	// Example: 0.82
+	PolytropicEfficiency float64 `json:"polytropic_efficiency"`
+
+	// PolytropicHead PolytropicHead is the design polytropic head, J/kg.
+	//
+	// Example: 62000
+	PolytropicHead *float64 `json:"polytropic_head,omitempty"`
+
+	// Speed Speed is the stage's design rotational speed, rev/min (or "rpm").
+	Speed ApiDesignPointSpec_Speed `json:"speed"`
+
+	// Suction Suction is the stage's design suction total state.
+	Suction ApiSuctionSpec `json:"suction"`
+
+	// TipMach TipMach is the machine Mach number U2/a01 at design.
+	//
+	// Example: 0.78
+	TipMach *float64 `json:"tip_mach,omitempty"`
+
+	// VolumeFlow VolumeFlow is the design actual volume flow at the stage's suction, m3/s (or "m3/h", "acfm").
+	VolumeFlow ApiDesignPointSpec_VolumeFlow `json:"volume_flow"`
+
+	// WorkCoefficient WorkCoefficient is λ = w/U2² at design (actual work, with the power input factor).
+	//
+	// Example: 0.62
+	WorkCoefficient *float64 `json:"work_coefficient,omitempty"`
+}
+
+// ApiDesignPointSpecDischargePressure0 DischargePressure is the stage's design discharge total pressure, Pa absolute.
+//
+// Example: 420000
+type ApiDesignPointSpecDischargePressure0 = float64
+
+// ApiDesignPointSpecDischargePressure1 a pressure with its unit, e.g. "14.7 psia", "1.2 bara", "0.3 barg"
+type ApiDesignPointSpecDischargePressure1 = string
+
+// ApiDesignPointSpec_DischargePressure DischargePressure is the stage's design discharge total pressure, Pa absolute.
+type ApiDesignPointSpec_DischargePressure struct {
+	union json.RawMessage
+}
+
+// ApiDesignPointSpecSpeed0 Speed is the stage's design rotational speed, rev/min (or "rpm").
+//
+// Example: 11500
+type ApiDesignPointSpecSpeed0 = float64
+
+// ApiDesignPointSpecSpeed1 a speed with its unit, e.g. "21000 rpm", "2200 rad/s"
+type ApiDesignPointSpecSpeed1 = string
+
+// ApiDesignPointSpec_Speed Speed is the stage's design rotational speed, rev/min (or "rpm").
+type ApiDesignPointSpec_Speed struct {
+	union json.RawMessage
+}
+
+// ApiDesignPointSpecVolumeFlow0 VolumeFlow is the design actual volume flow at the stage's suction, m3/s (or "m3/h", "acfm").
+//
+// Example: 1.9
+type ApiDesignPointSpecVolumeFlow0 = float64
+
+// ApiDesignPointSpecVolumeFlow1 a volume-flow with its unit, e.g. "9700 m3/h", "5700 acfm"
+type ApiDesignPointSpecVolumeFlow1 = string
+
+// ApiDesignPointSpec_VolumeFlow VolumeFlow is the design actual volume flow at the stage's suction, m3/s (or "m3/h", "acfm").
+type ApiDesignPointSpec_VolumeFlow struct {
+	union json.RawMessage
 }
 
 // ApiDiffuserSpec defines model for api.DiffuserSpec.
@@ -972,6 +1260,75 @@ type ApiInletSpec_MeridionalVelocity struct {
 // Example: axial-eye
 type ApiInletSpecType string
 
+// ApiIntercoolingSpec defines model for api.IntercoolingSpec.
+type ApiIntercoolingSpec struct {
+	// AfterStages AfterStages lists the stages (1-based) followed by a cooler; default
+	// every stage but the last for "geared", none for "inline"; [] for none.
+	//
+	// Example: [1,2]
+	AfterStages *[]int `json:"after_stages,omitempty"`
+
+	// Approach Approach is the outlet temperature above the coolant temperature, K
+	// (with coolant_temperature, instead of outlet_temperature).
+	//
+	// Example: 10
+	Approach *float64 `json:"approach,omitempty"`
+
+	// CoolantTemperature CoolantTemperature is the coolant inlet temperature, K (or "30 degC").
+	CoolantTemperature *ApiIntercoolingSpec_CoolantTemperature `json:"coolant_temperature,omitempty"`
+
+	// OutletTemperature OutletTemperature is the gas temperature leaving every cooler, K (or
+	// "40 degC"); default the section's suction temperature.
+	OutletTemperature *ApiIntercoolingSpec_OutletTemperature `json:"outlet_temperature,omitempty"`
+
+	// PressureDrop PressureDrop is the gas pressure drop across each cooler, Pa (or
+	// "0.2 bar"); default 0.
+	PressureDrop *ApiIntercoolingSpec_PressureDrop `json:"pressure_drop,omitempty"`
+}
+
+// ApiIntercoolingSpecCoolantTemperature0 CoolantTemperature is the coolant inlet temperature, K (or "30 degC").
+//
+// Example: 303.15
+type ApiIntercoolingSpecCoolantTemperature0 = float64
+
+// ApiIntercoolingSpecCoolantTemperature1 a temperature with its unit, e.g. "35 degC", "95 degF", "308.15 K"
+type ApiIntercoolingSpecCoolantTemperature1 = string
+
+// ApiIntercoolingSpec_CoolantTemperature CoolantTemperature is the coolant inlet temperature, K (or "30 degC").
+type ApiIntercoolingSpec_CoolantTemperature struct {
+	union json.RawMessage
+}
+
+// ApiIntercoolingSpecOutletTemperature0 OutletTemperature is the gas temperature leaving every cooler, K (or
+// "40 degC"); default the section's suction temperature.
+//
+// Example: 313.15
+type ApiIntercoolingSpecOutletTemperature0 = float64
+
+// ApiIntercoolingSpecOutletTemperature1 a temperature with its unit, e.g. "35 degC", "95 degF", "308.15 K"
+type ApiIntercoolingSpecOutletTemperature1 = string
+
+// ApiIntercoolingSpec_OutletTemperature OutletTemperature is the gas temperature leaving every cooler, K (or
+// "40 degC"); default the section's suction temperature.
+type ApiIntercoolingSpec_OutletTemperature struct {
+	union json.RawMessage
+}
+
+// ApiIntercoolingSpecPressureDrop0 PressureDrop is the gas pressure drop across each cooler, Pa (or
+// "0.2 bar"); default 0.
+//
+// Example: 20000
+type ApiIntercoolingSpecPressureDrop0 = float64
+
+// ApiIntercoolingSpecPressureDrop1 a pressure-difference with its unit, e.g. "1 unit"
+type ApiIntercoolingSpecPressureDrop1 = string
+
+// ApiIntercoolingSpec_PressureDrop PressureDrop is the gas pressure drop across each cooler, Pa (or
+// "0.2 bar"); default 0.
+type ApiIntercoolingSpec_PressureDrop struct {
+	union json.RawMessage
+}
+
 // ApiLevelOverrideSpec defines model for api.LevelOverrideSpec.
 type ApiLevelOverrideSpec struct {
 	// Limit Limit is the hard level (leave out for none).
@@ -1026,6 +1383,329 @@ type ApiLimitOut struct {
 //
 // Example: ok
 type ApiLimitOutSeverity string
+
+// ApiMachineCoolerSpec defines model for api.MachineCoolerSpec.
+type ApiMachineCoolerSpec struct {
+	// AfterStage AfterStage is the stage (1-based) the cooler follows.
+	//
+	// Example: 1
+	AfterStage int `json:"after_stage"`
+
+	// Approach Approach is the outlet temperature above the coolant temperature, K.
+	//
+	// Example: 10
+	Approach *float64 `json:"approach,omitempty"`
+
+	// CoolantTemperature CoolantTemperature is the coolant inlet temperature, K (or "30 degC").
+	CoolantTemperature *ApiMachineCoolerSpec_CoolantTemperature `json:"coolant_temperature,omitempty"`
+
+	// OutletTemperature OutletTemperature is the gas temperature leaving the cooler, K (or "40 degC").
+	OutletTemperature *ApiMachineCoolerSpec_OutletTemperature `json:"outlet_temperature,omitempty"`
+
+	// PressureDrop PressureDrop is the gas pressure drop across the cooler, Pa (or "0.3 bar").
+	PressureDrop *ApiMachineCoolerSpec_PressureDrop `json:"pressure_drop,omitempty"`
+}
+
+// ApiMachineCoolerSpecCoolantTemperature0 CoolantTemperature is the coolant inlet temperature, K (or "30 degC").
+//
+// Example: 303.15
+type ApiMachineCoolerSpecCoolantTemperature0 = float64
+
+// ApiMachineCoolerSpecCoolantTemperature1 a temperature with its unit, e.g. "35 degC", "95 degF", "308.15 K"
+type ApiMachineCoolerSpecCoolantTemperature1 = string
+
+// ApiMachineCoolerSpec_CoolantTemperature CoolantTemperature is the coolant inlet temperature, K (or "30 degC").
+type ApiMachineCoolerSpec_CoolantTemperature struct {
+	union json.RawMessage
+}
+
+// ApiMachineCoolerSpecOutletTemperature0 OutletTemperature is the gas temperature leaving the cooler, K (or "40 degC").
+//
+// Example: 313.15
+type ApiMachineCoolerSpecOutletTemperature0 = float64
+
+// ApiMachineCoolerSpecOutletTemperature1 a temperature with its unit, e.g. "35 degC", "95 degF", "308.15 K"
+type ApiMachineCoolerSpecOutletTemperature1 = string
+
+// ApiMachineCoolerSpec_OutletTemperature OutletTemperature is the gas temperature leaving the cooler, K (or "40 degC").
+type ApiMachineCoolerSpec_OutletTemperature struct {
+	union json.RawMessage
+}
+
+// ApiMachineCoolerSpecPressureDrop0 PressureDrop is the gas pressure drop across the cooler, Pa (or "0.3 bar").
+//
+// Example: 30000
+type ApiMachineCoolerSpecPressureDrop0 = float64
+
+// ApiMachineCoolerSpecPressureDrop1 a pressure-difference with its unit, e.g. "1 unit"
+type ApiMachineCoolerSpecPressureDrop1 = string
+
+// ApiMachineCoolerSpec_PressureDrop PressureDrop is the gas pressure drop across the cooler, Pa (or "0.3 bar").
+type ApiMachineCoolerSpec_PressureDrop struct {
+	union json.RawMessage
+}
+
+// ApiMachineDiffuserSpec defines model for api.MachineDiffuserSpec.
+type ApiMachineDiffuserSpec struct {
+	// ThroatArea ThroatArea is the total throat area of a vaned diffuser's passages,
+	// m2, for the choke estimate (estimated from the exit area when absent).
+	//
+	// Example: 0.012
+	ThroatArea *float64 `json:"throat_area,omitempty"`
+
+	// Type Type is "vaneless" or "vaned".
+	//
+	// Example: vaneless
+	Type ApiMachineDiffuserSpecType `json:"type"`
+}
+
+// ApiMachineDiffuserSpecType Type is "vaneless" or "vaned".
+//
+// Example: vaneless
+type ApiMachineDiffuserSpecType string
+
+// ApiMachineDriverSpec defines model for api.MachineDriverSpec.
+type ApiMachineDriverSpec struct {
+	// Rating Rating is the driver's rated power, W (or "kW", "MW", "hp").
+	Rating *ApiMachineDriverSpec_Rating `json:"rating,omitempty"`
+}
+
+// ApiMachineDriverSpecRating0 Rating is the driver's rated power, W (or "kW", "MW", "hp").
+//
+// Example: 750000
+type ApiMachineDriverSpecRating0 = float64
+
+// ApiMachineDriverSpecRating1 a power with its unit, e.g. "1 unit"
+type ApiMachineDriverSpecRating1 = string
+
+// ApiMachineDriverSpec_Rating Rating is the driver's rated power, W (or "kW", "MW", "hp").
+type ApiMachineDriverSpec_Rating struct {
+	union json.RawMessage
+}
+
+// ApiMachineInletSpec defines model for api.MachineInletSpec.
+type ApiMachineInletSpec struct {
+	// Diameter Diameter is the blade inlet diameter D1 of a radial inlet, m.
+	Diameter *ApiMachineInletSpec_Diameter `json:"diameter,omitempty"`
+
+	// EyeHubDiameter EyeHubDiameter is the hub diameter at the eye of an axial eye, m.
+	EyeHubDiameter *ApiMachineInletSpec_EyeHubDiameter `json:"eye_hub_diameter,omitempty"`
+
+	// EyeTipDiameter EyeTipDiameter is the eye (shroud) diameter D1t of an axial eye, m.
+	EyeTipDiameter *ApiMachineInletSpec_EyeTipDiameter `json:"eye_tip_diameter,omitempty"`
+
+	// PrewhirlAngle PrewhirlAngle is a fixed inlet-guide-vane flow angle at the eye, deg from axial, positive with rotation.
+	//
+	// Example: 0
+	PrewhirlAngle *float64 `json:"prewhirl_angle,omitempty"`
+
+	// Type Type is "axial-eye" or "radial".
+	//
+	// Example: axial-eye
+	Type ApiMachineInletSpecType `json:"type"`
+
+	// Width Width is the blade inlet width b1 of a radial inlet, m.
+	Width *ApiMachineInletSpec_Width `json:"width,omitempty"`
+}
+
+// ApiMachineInletSpecDiameter0 Diameter is the blade inlet diameter D1 of a radial inlet, m.
+//
+// Example: 0.19
+type ApiMachineInletSpecDiameter0 = float64
+
+// ApiMachineInletSpecDiameter1 a length with its unit, e.g. "1 unit"
+type ApiMachineInletSpecDiameter1 = string
+
+// ApiMachineInletSpec_Diameter Diameter is the blade inlet diameter D1 of a radial inlet, m.
+type ApiMachineInletSpec_Diameter struct {
+	union json.RawMessage
+}
+
+// ApiMachineInletSpecEyeHubDiameter0 EyeHubDiameter is the hub diameter at the eye of an axial eye, m.
+//
+// Example: 0.07
+type ApiMachineInletSpecEyeHubDiameter0 = float64
+
+// ApiMachineInletSpecEyeHubDiameter1 a length with its unit, e.g. "1 unit"
+type ApiMachineInletSpecEyeHubDiameter1 = string
+
+// ApiMachineInletSpec_EyeHubDiameter EyeHubDiameter is the hub diameter at the eye of an axial eye, m.
+type ApiMachineInletSpec_EyeHubDiameter struct {
+	union json.RawMessage
+}
+
+// ApiMachineInletSpecEyeTipDiameter0 EyeTipDiameter is the eye (shroud) diameter D1t of an axial eye, m.
+//
+// Example: 0.2
+type ApiMachineInletSpecEyeTipDiameter0 = float64
+
+// ApiMachineInletSpecEyeTipDiameter1 a length with its unit, e.g. "1 unit"
+type ApiMachineInletSpecEyeTipDiameter1 = string
+
+// ApiMachineInletSpec_EyeTipDiameter EyeTipDiameter is the eye (shroud) diameter D1t of an axial eye, m.
+type ApiMachineInletSpec_EyeTipDiameter struct {
+	union json.RawMessage
+}
+
+// ApiMachineInletSpecType Type is "axial-eye" or "radial".
+//
+// Example: axial-eye
+type ApiMachineInletSpecType string
+
+// ApiMachineInletSpecWidth0 Width is the blade inlet width b1 of a radial inlet, m.
+//
+// Example: 0.03
+type ApiMachineInletSpecWidth0 = float64
+
+// ApiMachineInletSpecWidth1 a length with its unit, e.g. "1 unit"
+type ApiMachineInletSpecWidth1 = string
+
+// ApiMachineInletSpec_Width Width is the blade inlet width b1 of a radial inlet, m.
+type ApiMachineInletSpec_Width struct {
+	union json.RawMessage
+}
+
+// ApiMachineSpec defines model for api.MachineSpec.
+type ApiMachineSpec struct {
+	// Arrangement Arrangement is "single" (one stage), "geared" (each stage on its own
+	// pinion speed, as in an integrally geared machine) or "inline" (one
+	// shaft speed for every impeller). Every stage turns at a fixed ratio to
+	// the first stage's speed: its design speed over the first stage's.
+	//
+	// Example: single
+	Arrangement *ApiMachineSpecArrangement `json:"arrangement,omitempty"`
+
+	// Coolers Coolers are the intercoolers, each after the stage it names (1-based).
+	Coolers *[]ApiMachineCoolerSpec `json:"coolers,omitempty"`
+
+	// Driver Driver is the installed driver; default a rating of 1.10 × the design
+	// shaft power (recorded in provenance).
+	Driver *ApiMachineDriverSpec `json:"driver,omitempty"`
+
+	// LimitOverrides LimitOverrides replaces the levels of limit rules, keyed by rule
+	// (the rule names are in each limits[] entry of a sizing answer).
+	LimitOverrides *map[string]ApiLevelOverrideSpec `json:"limit_overrides,omitempty"`
+
+	// MechanicalEfficiency MechanicalEfficiency is gas power over shaft power of the whole
+	// machine (bearings, seals, gears); default 0.98.
+	//
+	// Example: 0.98
+	MechanicalEfficiency *float64 `json:"mechanical_efficiency,omitempty"`
+
+	// Name Name is a free tag of the caller's (an asset or tag number); not used in the calculation.
+	//
+	// Example: K-4101
+	Name *string `json:"name,omitempty"`
+
+	// SpeedRange SpeedRange bounds the first stage's speed, rev/min; default 70 % and
+	// 105 % of the design speed (recorded in provenance).
+	SpeedRange *ApiSpeedRangeSpec `json:"speed_range,omitempty"`
+
+	// Stages Stages are the impellers in flow order (at least one).
+	Stages []ApiMachineStageSpec `json:"stages"`
+
+	// SurgeControl SurgeControl is the anti-surge control line (used by /v1/machine/check).
+	SurgeControl *ApiSurgeControlSpec `json:"surge_control,omitempty"`
+}
+
+// ApiMachineSpecArrangement Arrangement is "single" (one stage), "geared" (each stage on its own
+// pinion speed, as in an integrally geared machine) or "inline" (one
+// shaft speed for every impeller). Every stage turns at a fixed ratio to
+// the first stage's speed: its design speed over the first stage's.
+//
+// Example: single
+type ApiMachineSpecArrangement string
+
+// ApiMachineStageSpec defines model for api.MachineStageSpec.
+type ApiMachineStageSpec struct {
+	// BladeCount BladeCount is the number of blades at the exit (needed with slip_model).
+	//
+	// Example: 17
+	BladeCount *int `json:"blade_count,omitempty"`
+
+	// BladeExitAngle BladeExitAngle is the blade backsweep at the exit from radial, deg (0: radial blades).
+	//
+	// Example: 40
+	BladeExitAngle float64 `json:"blade_exit_angle"`
+
+	// Construction Construction sets the tip-speed and pressure-ratio levels: "closed-steel"
+	// (default), "open-steel", "open-aluminium" or "open-titanium".
+	//
+	// Example: closed-steel
+	Construction *ApiMachineStageSpecConstruction `json:"construction,omitempty"`
+
+	// Design Design is the point the stage was sized for.
+	Design ApiDesignPointSpec `json:"design"`
+
+	// Diffuser Diffuser is the diffuser as built; default vaneless.
+	Diffuser *ApiMachineDiffuserSpec `json:"diffuser,omitempty"`
+
+	// ExitBlockage ExitBlockage is the blocked fraction of the exit area; default 0.1.
+	//
+	// Example: 0.1
+	ExitBlockage *float64 `json:"exit_blockage,omitempty"`
+
+	// ExitWidth ExitWidth is the impeller exit width b2, m (or "mm", "in").
+	ExitWidth ApiMachineStageSpec_ExitWidth `json:"exit_width"`
+
+	// Inlet Inlet is the impeller inlet as built.
+	Inlet ApiMachineInletSpec `json:"inlet"`
+
+	// PowerInputFactor PowerInputFactor is actual work over Euler work (disc friction, windage); default 1.
+	//
+	// Example: 1
+	PowerInputFactor *float64 `json:"power_input_factor,omitempty"`
+
+	// SlipFactor SlipFactor is a fixed slip factor, 1 − slip velocity / tip speed, instead of slip_model.
+	//
+	// Example: 0.88
+	SlipFactor *float64 `json:"slip_factor,omitempty"`
+
+	// SlipModel SlipModel is the slip correlation used with blade_count: "wiesner", "stanitz" or "stodola".
+	//
+	// Example: wiesner
+	SlipModel *ApiMachineStageSpecSlipModel `json:"slip_model,omitempty"`
+
+	// TipDiameter TipDiameter is the impeller tip diameter D2, m (or "mm", "in").
+	TipDiameter ApiMachineStageSpec_TipDiameter `json:"tip_diameter"`
+}
+
+// ApiMachineStageSpecConstruction Construction sets the tip-speed and pressure-ratio levels: "closed-steel"
+// (default), "open-steel", "open-aluminium" or "open-titanium".
+//
+// Example: closed-steel
+type ApiMachineStageSpecConstruction string
+
+// ApiMachineStageSpecExitWidth0 ExitWidth is the impeller exit width b2, m (or "mm", "in").
+//
+// Example: 0.021
+type ApiMachineStageSpecExitWidth0 = float64
+
+// ApiMachineStageSpecExitWidth1 a length with its unit, e.g. "1 unit"
+type ApiMachineStageSpecExitWidth1 = string
+
+// ApiMachineStageSpec_ExitWidth ExitWidth is the impeller exit width b2, m (or "mm", "in").
+type ApiMachineStageSpec_ExitWidth struct {
+	union json.RawMessage
+}
+
+// ApiMachineStageSpecSlipModel SlipModel is the slip correlation used with blade_count: "wiesner", "stanitz" or "stodola".
+//
+// Example: wiesner
+type ApiMachineStageSpecSlipModel string
+
+// ApiMachineStageSpecTipDiameter0 TipDiameter is the impeller tip diameter D2, m (or "mm", "in").
+//
+// Example: 0.42
+type ApiMachineStageSpecTipDiameter0 = float64
+
+// ApiMachineStageSpecTipDiameter1 a length with its unit, e.g. "1 unit"
+type ApiMachineStageSpecTipDiameter1 = string
+
+// ApiMachineStageSpec_TipDiameter TipDiameter is the impeller tip diameter D2, m (or "mm", "in").
+type ApiMachineStageSpec_TipDiameter struct {
+	union json.RawMessage
+}
 
 // ApiMethodOut defines model for api.MethodOut.
 type ApiMethodOut struct {
@@ -1282,6 +1962,302 @@ type ApiProvenanceOut struct {
 	ServiceVersion string `json:"service_version"`
 }
 
+// ApiSectionCoolerOut defines model for api.SectionCoolerOut.
+type ApiSectionCoolerOut struct {
+	// AfterStage AfterStage is the stage (1-based) the cooler follows.
+	//
+	// Example: 1
+	AfterStage int `json:"after_stage"`
+
+	// Condensate Condensate is the liquid removed at the outlet, kg/s.
+	//
+	// Example: 0.02
+	Condensate float64 `json:"condensate"`
+
+	// Duty Duty is the heat taken out, W (sensible and latent).
+	//
+	// Example: 420000
+	Duty float64 `json:"duty"`
+
+	// Inlet Inlet is the gas entering (the stage's discharge).
+	Inlet ApiSectionStateOut `json:"inlet"`
+
+	// Outlet Outlet is the gas leaving.
+	Outlet ApiSectionStateOut `json:"outlet"`
+}
+
+// ApiSectionHeadOut defines model for api.SectionHeadOut.
+type ApiSectionHeadOut struct {
+	// Polytropic Polytropic is the sum of the stages' polytropic heads, J/kg.
+	//
+	// Example: 210000
+	Polytropic float64 `json:"polytropic"`
+}
+
+// ApiSectionRequest defines model for api.SectionRequest.
+type ApiSectionRequest struct {
+	// Arrangement Arrangement is "geared" (default: each stage on its own pinion speed)
+	// or "inline" (one shaft speed for every impeller).
+	//
+	// Example: geared
+	Arrangement *ApiSectionRequestArrangement `json:"arrangement,omitempty"`
+	Diffuser    *ApiDiffuserSpec              `json:"diffuser,omitempty"`
+
+	// DischargePressure DischargePressure is the section's discharge total pressure, Pa
+	// absolute (or a string with a unit). Give it or pressure_ratio, not both.
+	DischargePressure *ApiSectionRequest_DischargePressure `json:"discharge_pressure,omitempty"`
+
+	// Driver Driver is the section's driver.
+	Driver *ApiDriverSpec `json:"driver,omitempty"`
+
+	// Efficiency Efficiency is every stage's total-to-total efficiency; leave it out to
+	// have each stage's polytropic efficiency estimated.
+	Efficiency *ApiEfficiencySpec `json:"efficiency,omitempty"`
+	Flow       ApiFlowSpec        `json:"flow"`
+	Gas        ApiGasSpec         `json:"gas"`
+
+	// Impeller Impeller is the blading and inlet of every stage.
+	Impeller *ApiImpellerSpec `json:"impeller,omitempty"`
+
+	// Intercooling Intercooling places and sets the coolers between stages.
+	Intercooling *ApiIntercoolingSpec `json:"intercooling,omitempty"`
+
+	// LimitOverrides LimitOverrides replaces the levels of limit rules for every stage.
+	LimitOverrides *map[string]ApiLevelOverrideSpec `json:"limit_overrides,omitempty"`
+
+	// MechanicalEfficiency MechanicalEfficiency is gas power over shaft power of the whole
+	// section (one shaft or bull gear); default 0.98.
+	//
+	// Example: 0.98
+	MechanicalEfficiency *float64 `json:"mechanical_efficiency,omitempty"`
+
+	// MechanicalLosses MechanicalLosses are the section's bearing, seal and gear losses, W, counted once.
+	MechanicalLosses *ApiSectionRequest_MechanicalLosses `json:"mechanical_losses,omitempty"`
+	Options          *ApiOptionsSpec                     `json:"options,omitempty"`
+
+	// PressureRatio PressureRatio is the section's overall total pressure ratio (> 1).
+	//
+	// Example: 8
+	PressureRatio *float64 `json:"pressure_ratio,omitempty"`
+
+	// Speed Speed is the shaft speed of an "inline" section, or of every stage of
+	// a "geared" one, rev/min; leave it out to have each stage's (geared) or
+	// the shaft's (inline) speed chosen.
+	Speed *ApiSectionRequest_Speed `json:"speed,omitempty"`
+
+	// SpeedStep SpeedStep rounds a chosen speed to a multiple of this many rev/min.
+	//
+	// Example: 50
+	SpeedStep *float64 `json:"speed_step,omitempty"`
+
+	// SpeedTarget SpeedTarget chooses each stage's speed (geared) or the stages' own
+	// speeds whose geometric mean is the shaft speed (inline).
+	SpeedTarget *ApiSpeedTargetSpec `json:"speed_target,omitempty"`
+
+	// StageCount StageCount is the number of stages (1 to 12); leave it out to have the
+	// least count chosen for which every stage stays inside its levels.
+	//
+	// Example: 3
+	StageCount *int           `json:"stage_count,omitempty"`
+	Suction    ApiSuctionSpec `json:"suction"`
+
+	// TipDiameter TipDiameter is one tip diameter for every stage of a "geared" section, m.
+	TipDiameter *ApiSectionRequest_TipDiameter `json:"tip_diameter,omitempty"`
+}
+
+// ApiSectionRequestArrangement Arrangement is "geared" (default: each stage on its own pinion speed)
+// or "inline" (one shaft speed for every impeller).
+//
+// Example: geared
+type ApiSectionRequestArrangement string
+
+// ApiSectionRequestDischargePressure0 DischargePressure is the section's discharge total pressure, Pa
+// absolute (or a string with a unit). Give it or pressure_ratio, not both.
+//
+// Example: 900000
+type ApiSectionRequestDischargePressure0 = float64
+
+// ApiSectionRequestDischargePressure1 a pressure with its unit, e.g. "14.7 psia", "1.2 bara", "0.3 barg"
+type ApiSectionRequestDischargePressure1 = string
+
+// ApiSectionRequest_DischargePressure DischargePressure is the section's discharge total pressure, Pa
+// absolute (or a string with a unit). Give it or pressure_ratio, not both.
+type ApiSectionRequest_DischargePressure struct {
+	union json.RawMessage
+}
+
+// ApiSectionRequestMechanicalLosses0 MechanicalLosses are the section's bearing, seal and gear losses, W, counted once.
+//
+// Example: 40000
+type ApiSectionRequestMechanicalLosses0 = float64
+
+// ApiSectionRequestMechanicalLosses1 a power with its unit, e.g. "1 unit"
+type ApiSectionRequestMechanicalLosses1 = string
+
+// ApiSectionRequest_MechanicalLosses MechanicalLosses are the section's bearing, seal and gear losses, W, counted once.
+type ApiSectionRequest_MechanicalLosses struct {
+	union json.RawMessage
+}
+
+// ApiSectionRequestSpeed0 Speed is the shaft speed of an "inline" section, or of every stage of
+// a "geared" one, rev/min; leave it out to have each stage's (geared) or
+// the shaft's (inline) speed chosen.
+//
+// Example: 11000
+type ApiSectionRequestSpeed0 = float64
+
+// ApiSectionRequestSpeed1 a speed with its unit, e.g. "21000 rpm", "2200 rad/s"
+type ApiSectionRequestSpeed1 = string
+
+// ApiSectionRequest_Speed Speed is the shaft speed of an "inline" section, or of every stage of
+// a "geared" one, rev/min; leave it out to have each stage's (geared) or
+// the shaft's (inline) speed chosen.
+type ApiSectionRequest_Speed struct {
+	union json.RawMessage
+}
+
+// ApiSectionRequestTipDiameter0 TipDiameter is one tip diameter for every stage of a "geared" section, m.
+//
+// Example: 0.42
+type ApiSectionRequestTipDiameter0 = float64
+
+// ApiSectionRequestTipDiameter1 a length with its unit, e.g. "1 unit"
+type ApiSectionRequestTipDiameter1 = string
+
+// ApiSectionRequest_TipDiameter TipDiameter is one tip diameter for every stage of a "geared" section, m.
+type ApiSectionRequest_TipDiameter struct {
+	union json.RawMessage
+}
+
+// ApiSectionResponse defines model for api.SectionResponse.
+type ApiSectionResponse struct {
+	// Arrangement Arrangement is "geared" or "inline".
+	//
+	// Example: geared
+	Arrangement ApiSectionResponseArrangement `json:"arrangement"`
+
+	// Cautions Cautions are short sentences for people; they defer to the
+	// manufacturer, the standards, local codes and licensed practice.
+	Cautions []string `json:"cautions"`
+
+	// Coolers Coolers are the intercoolers.
+	Coolers []ApiSectionCoolerOut `json:"coolers"`
+
+	// Discharge Discharge is the section's discharge state.
+	Discharge ApiSectionStateOut `json:"discharge"`
+
+	// Head Head is the sum of the stages' polytropic heads.
+	Head ApiSectionHeadOut `json:"head"`
+
+	// Machine Machine is the section as built, for /v1/machine/rate, /map and /check.
+	Machine ApiMachineSpec `json:"machine"`
+
+	// Power Power is the section total: gas power of the stages, shaft power with
+	// the mechanical losses counted once for the shaft or bull gear.
+	Power      ApiPowerOut      `json:"power"`
+	Provenance ApiProvenanceOut `json:"provenance"`
+
+	// Speed Speed is the common shaft speed of an "inline" section, rev/min
+	// (absent for "geared": each stage has its own).
+	//
+	// Example: 11000
+	Speed *float64 `json:"speed,omitempty"`
+
+	// Split Split says how the pressure rise is shared among the stages.
+	Split string `json:"split"`
+
+	// StageCount StageCount is the number of stages.
+	//
+	// Example: 3
+	StageCount int `json:"stage_count"`
+
+	// StageCountBasis StageCountBasis is "given" or "chosen" (the least count inside every stage's levels).
+	//
+	// Example: chosen
+	StageCountBasis ApiSectionResponseStageCountBasis `json:"stage_count_basis"`
+
+	// Stages Stages are the full stage answers in flow order, each with its own
+	// suction state, mass flow and speed.
+	Stages []ApiStageResponse `json:"stages"`
+
+	// Verdict Verdict follows the worst warning of the section and its stages.
+	//
+	// Example: past-warning
+	Verdict ApiSectionResponseVerdict `json:"verdict"`
+
+	// Warnings Warnings are the section's own (stage 0: impellers per casing,
+	// stage-count levels), the coolers' (stage: the stage before), and every
+	// stage's (stage: its number).
+	Warnings []ApiSectionWarningOut `json:"warnings"`
+}
+
+// ApiSectionResponseArrangement Arrangement is "geared" or "inline".
+//
+// Example: geared
+type ApiSectionResponseArrangement string
+
+// ApiSectionResponseStageCountBasis StageCountBasis is "given" or "chosen" (the least count inside every stage's levels).
+//
+// Example: chosen
+type ApiSectionResponseStageCountBasis string
+
+// ApiSectionResponseVerdict Verdict follows the worst warning of the section and its stages.
+//
+// Example: past-warning
+type ApiSectionResponseVerdict string
+
+// ApiSectionStateOut defines model for api.SectionStateOut.
+type ApiSectionStateOut struct {
+	// Pressure Pressure, Pa absolute.
+	//
+	// Example: 200000
+	Pressure float64 `json:"pressure"`
+
+	// Temperature Temperature, K.
+	//
+	// Example: 313.15
+	Temperature float64 `json:"temperature"`
+}
+
+// ApiSectionWarningOut defines model for api.SectionWarningOut.
+type ApiSectionWarningOut struct {
+	// Basis Basis is where the level comes from: a standard or paper, "common practice, no source", or a caller override.
+	Basis string `json:"basis"`
+
+	// Code Code is our own name for the concern, e.g. "tip-speed", "impellers-per-casing", "stage-inlet-condensate".
+	//
+	// Example: stage-inlet-condensate
+	Code string `json:"code"`
+
+	// Limit Limit is the level the value is near or past, in unit.
+	Limit float64 `json:"limit"`
+
+	// Margin Margin is the distance to the warning level as a fraction of it: positive inside, negative past it.
+	Margin  float64 `json:"margin"`
+	Message string  `json:"message"`
+
+	// Severity Severity is "notice" (near a level), "warning" (past the soft level) or "limit" (past the limit of normal practice).
+	//
+	// Example: warning
+	Severity ApiSectionWarningOutSeverity `json:"severity"`
+
+	// Stage Stage is the stage the warning belongs to (1-based); 0 for the section.
+	//
+	// Example: 2
+	Stage int `json:"stage"`
+
+	// Unit Example: -
+	Unit string `json:"unit"`
+
+	// Value Value measured, in unit.
+	Value float64 `json:"value"`
+}
+
+// ApiSectionWarningOutSeverity Severity is "notice" (near a level), "warning" (past the soft level) or "limit" (past the limit of normal practice).
+//
+// Example: warning
+type ApiSectionWarningOutSeverity string
+
 // ApiSpeedChoiceOut defines model for api.SpeedChoiceOut.
 type ApiSpeedChoiceOut struct {
 	// Basis Basis is "given", "tip-diameter", "specific-speed" or "flow-coefficient".
@@ -1304,6 +2280,41 @@ type ApiSpeedChoiceOut struct {
 //
 // Example: specific-speed
 type ApiSpeedChoiceOutBasis string
+
+// ApiSpeedRangeSpec defines model for api.SpeedRangeSpec.
+type ApiSpeedRangeSpec struct {
+	// MaximumContinuous MaximumContinuous is the maximum continuous speed, rev/min.
+	MaximumContinuous ApiSpeedRangeSpec_MaximumContinuous `json:"maximum_continuous"`
+
+	// Minimum Minimum is the minimum operating speed, rev/min.
+	Minimum ApiSpeedRangeSpec_Minimum `json:"minimum"`
+}
+
+// ApiSpeedRangeSpecMaximumContinuous0 MaximumContinuous is the maximum continuous speed, rev/min.
+//
+// Example: 12075
+type ApiSpeedRangeSpecMaximumContinuous0 = float64
+
+// ApiSpeedRangeSpecMaximumContinuous1 a speed with its unit, e.g. "21000 rpm", "2200 rad/s"
+type ApiSpeedRangeSpecMaximumContinuous1 = string
+
+// ApiSpeedRangeSpec_MaximumContinuous MaximumContinuous is the maximum continuous speed, rev/min.
+type ApiSpeedRangeSpec_MaximumContinuous struct {
+	union json.RawMessage
+}
+
+// ApiSpeedRangeSpecMinimum0 Minimum is the minimum operating speed, rev/min.
+//
+// Example: 8050
+type ApiSpeedRangeSpecMinimum0 = float64
+
+// ApiSpeedRangeSpecMinimum1 a speed with its unit, e.g. "21000 rpm", "2200 rad/s"
+type ApiSpeedRangeSpecMinimum1 = string
+
+// ApiSpeedRangeSpec_Minimum Minimum is the minimum operating speed, rev/min.
+type ApiSpeedRangeSpec_Minimum struct {
+	union json.RawMessage
+}
 
 // ApiSpeedTargetSpec defines model for api.SpeedTargetSpec.
 type ApiSpeedTargetSpec struct {
@@ -1621,6 +2632,15 @@ type ApiSuctionSpec_Temperature struct {
 	union json.RawMessage
 }
 
+// ApiSurgeControlSpec defines model for api.SurgeControlSpec.
+type ApiSurgeControlSpec struct {
+	// Margin Margin is the control line's distance from surge as a fraction of the
+	// surge flow at the same speed (0.1: control at 1.1 × the surge flow).
+	//
+	// Example: 0.1
+	Margin *float64 `json:"margin,omitempty"`
+}
+
 // ApiVelocitiesOut defines model for api.VelocitiesOut.
 type ApiVelocitiesOut struct {
 	// ExitAbsolute ExitAbsolute is c2, m/s.
@@ -1736,11 +2756,200 @@ type ApiWarningOutSeverity string
 // GasPropertiesJSONRequestBody defines body for GasProperties for application/json ContentType.
 type GasPropertiesJSONRequestBody = ApiPropertiesRequest
 
+// SizeSectionJSONRequestBody defines body for SizeSection for application/json ContentType.
+type SizeSectionJSONRequestBody = ApiSectionRequest
+
 // SizeStageJSONRequestBody defines body for SizeStage for application/json ContentType.
 type SizeStageJSONRequestBody = ApiStageRequest
 
 // SizeStageBatchJSONRequestBody defines body for SizeStageBatch for application/json ContentType.
 type SizeStageBatchJSONRequestBody = ApiBatchRequest
+
+// AsApiDesignPointSpecDischargePressure0 returns the union data inside the ApiDesignPointSpec_DischargePressure as a ApiDesignPointSpecDischargePressure0
+func (t ApiDesignPointSpec_DischargePressure) AsApiDesignPointSpecDischargePressure0() (ApiDesignPointSpecDischargePressure0, error) {
+	var body ApiDesignPointSpecDischargePressure0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiDesignPointSpecDischargePressure0 overwrites any union data inside the ApiDesignPointSpec_DischargePressure as the provided ApiDesignPointSpecDischargePressure0
+func (t *ApiDesignPointSpec_DischargePressure) FromApiDesignPointSpecDischargePressure0(v ApiDesignPointSpecDischargePressure0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiDesignPointSpecDischargePressure0 performs a merge with any union data inside the ApiDesignPointSpec_DischargePressure, using the provided ApiDesignPointSpecDischargePressure0
+func (t *ApiDesignPointSpec_DischargePressure) MergeApiDesignPointSpecDischargePressure0(v ApiDesignPointSpecDischargePressure0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiDesignPointSpecDischargePressure1 returns the union data inside the ApiDesignPointSpec_DischargePressure as a ApiDesignPointSpecDischargePressure1
+func (t ApiDesignPointSpec_DischargePressure) AsApiDesignPointSpecDischargePressure1() (ApiDesignPointSpecDischargePressure1, error) {
+	var body ApiDesignPointSpecDischargePressure1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiDesignPointSpecDischargePressure1 overwrites any union data inside the ApiDesignPointSpec_DischargePressure as the provided ApiDesignPointSpecDischargePressure1
+func (t *ApiDesignPointSpec_DischargePressure) FromApiDesignPointSpecDischargePressure1(v ApiDesignPointSpecDischargePressure1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiDesignPointSpecDischargePressure1 performs a merge with any union data inside the ApiDesignPointSpec_DischargePressure, using the provided ApiDesignPointSpecDischargePressure1
+func (t *ApiDesignPointSpec_DischargePressure) MergeApiDesignPointSpecDischargePressure1(v ApiDesignPointSpecDischargePressure1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiDesignPointSpec_DischargePressure) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiDesignPointSpec_DischargePressure) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
+// AsApiDesignPointSpecSpeed0 returns the union data inside the ApiDesignPointSpec_Speed as a ApiDesignPointSpecSpeed0
+func (t ApiDesignPointSpec_Speed) AsApiDesignPointSpecSpeed0() (ApiDesignPointSpecSpeed0, error) {
+	var body ApiDesignPointSpecSpeed0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiDesignPointSpecSpeed0 overwrites any union data inside the ApiDesignPointSpec_Speed as the provided ApiDesignPointSpecSpeed0
+func (t *ApiDesignPointSpec_Speed) FromApiDesignPointSpecSpeed0(v ApiDesignPointSpecSpeed0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiDesignPointSpecSpeed0 performs a merge with any union data inside the ApiDesignPointSpec_Speed, using the provided ApiDesignPointSpecSpeed0
+func (t *ApiDesignPointSpec_Speed) MergeApiDesignPointSpecSpeed0(v ApiDesignPointSpecSpeed0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiDesignPointSpecSpeed1 returns the union data inside the ApiDesignPointSpec_Speed as a ApiDesignPointSpecSpeed1
+func (t ApiDesignPointSpec_Speed) AsApiDesignPointSpecSpeed1() (ApiDesignPointSpecSpeed1, error) {
+	var body ApiDesignPointSpecSpeed1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiDesignPointSpecSpeed1 overwrites any union data inside the ApiDesignPointSpec_Speed as the provided ApiDesignPointSpecSpeed1
+func (t *ApiDesignPointSpec_Speed) FromApiDesignPointSpecSpeed1(v ApiDesignPointSpecSpeed1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiDesignPointSpecSpeed1 performs a merge with any union data inside the ApiDesignPointSpec_Speed, using the provided ApiDesignPointSpecSpeed1
+func (t *ApiDesignPointSpec_Speed) MergeApiDesignPointSpecSpeed1(v ApiDesignPointSpecSpeed1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiDesignPointSpec_Speed) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiDesignPointSpec_Speed) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
+// AsApiDesignPointSpecVolumeFlow0 returns the union data inside the ApiDesignPointSpec_VolumeFlow as a ApiDesignPointSpecVolumeFlow0
+func (t ApiDesignPointSpec_VolumeFlow) AsApiDesignPointSpecVolumeFlow0() (ApiDesignPointSpecVolumeFlow0, error) {
+	var body ApiDesignPointSpecVolumeFlow0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiDesignPointSpecVolumeFlow0 overwrites any union data inside the ApiDesignPointSpec_VolumeFlow as the provided ApiDesignPointSpecVolumeFlow0
+func (t *ApiDesignPointSpec_VolumeFlow) FromApiDesignPointSpecVolumeFlow0(v ApiDesignPointSpecVolumeFlow0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiDesignPointSpecVolumeFlow0 performs a merge with any union data inside the ApiDesignPointSpec_VolumeFlow, using the provided ApiDesignPointSpecVolumeFlow0
+func (t *ApiDesignPointSpec_VolumeFlow) MergeApiDesignPointSpecVolumeFlow0(v ApiDesignPointSpecVolumeFlow0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiDesignPointSpecVolumeFlow1 returns the union data inside the ApiDesignPointSpec_VolumeFlow as a ApiDesignPointSpecVolumeFlow1
+func (t ApiDesignPointSpec_VolumeFlow) AsApiDesignPointSpecVolumeFlow1() (ApiDesignPointSpecVolumeFlow1, error) {
+	var body ApiDesignPointSpecVolumeFlow1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiDesignPointSpecVolumeFlow1 overwrites any union data inside the ApiDesignPointSpec_VolumeFlow as the provided ApiDesignPointSpecVolumeFlow1
+func (t *ApiDesignPointSpec_VolumeFlow) FromApiDesignPointSpecVolumeFlow1(v ApiDesignPointSpecVolumeFlow1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiDesignPointSpecVolumeFlow1 performs a merge with any union data inside the ApiDesignPointSpec_VolumeFlow, using the provided ApiDesignPointSpecVolumeFlow1
+func (t *ApiDesignPointSpec_VolumeFlow) MergeApiDesignPointSpecVolumeFlow1(v ApiDesignPointSpecVolumeFlow1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiDesignPointSpec_VolumeFlow) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiDesignPointSpec_VolumeFlow) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
 
 // AsApiDriverSpecRating0 returns the union data inside the ApiDriverSpec_Rating as a ApiDriverSpecRating0
 func (t ApiDriverSpec_Rating) AsApiDriverSpecRating0() (ApiDriverSpecRating0, error) {
@@ -2176,6 +3385,812 @@ func (t *ApiInletSpec_MeridionalVelocity) UnmarshalJSON(b []byte) error {
 	return err
 }
 
+// AsApiIntercoolingSpecCoolantTemperature0 returns the union data inside the ApiIntercoolingSpec_CoolantTemperature as a ApiIntercoolingSpecCoolantTemperature0
+func (t ApiIntercoolingSpec_CoolantTemperature) AsApiIntercoolingSpecCoolantTemperature0() (ApiIntercoolingSpecCoolantTemperature0, error) {
+	var body ApiIntercoolingSpecCoolantTemperature0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiIntercoolingSpecCoolantTemperature0 overwrites any union data inside the ApiIntercoolingSpec_CoolantTemperature as the provided ApiIntercoolingSpecCoolantTemperature0
+func (t *ApiIntercoolingSpec_CoolantTemperature) FromApiIntercoolingSpecCoolantTemperature0(v ApiIntercoolingSpecCoolantTemperature0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiIntercoolingSpecCoolantTemperature0 performs a merge with any union data inside the ApiIntercoolingSpec_CoolantTemperature, using the provided ApiIntercoolingSpecCoolantTemperature0
+func (t *ApiIntercoolingSpec_CoolantTemperature) MergeApiIntercoolingSpecCoolantTemperature0(v ApiIntercoolingSpecCoolantTemperature0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiIntercoolingSpecCoolantTemperature1 returns the union data inside the ApiIntercoolingSpec_CoolantTemperature as a ApiIntercoolingSpecCoolantTemperature1
+func (t ApiIntercoolingSpec_CoolantTemperature) AsApiIntercoolingSpecCoolantTemperature1() (ApiIntercoolingSpecCoolantTemperature1, error) {
+	var body ApiIntercoolingSpecCoolantTemperature1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiIntercoolingSpecCoolantTemperature1 overwrites any union data inside the ApiIntercoolingSpec_CoolantTemperature as the provided ApiIntercoolingSpecCoolantTemperature1
+func (t *ApiIntercoolingSpec_CoolantTemperature) FromApiIntercoolingSpecCoolantTemperature1(v ApiIntercoolingSpecCoolantTemperature1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiIntercoolingSpecCoolantTemperature1 performs a merge with any union data inside the ApiIntercoolingSpec_CoolantTemperature, using the provided ApiIntercoolingSpecCoolantTemperature1
+func (t *ApiIntercoolingSpec_CoolantTemperature) MergeApiIntercoolingSpecCoolantTemperature1(v ApiIntercoolingSpecCoolantTemperature1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiIntercoolingSpec_CoolantTemperature) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiIntercoolingSpec_CoolantTemperature) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
+// AsApiIntercoolingSpecOutletTemperature0 returns the union data inside the ApiIntercoolingSpec_OutletTemperature as a ApiIntercoolingSpecOutletTemperature0
+func (t ApiIntercoolingSpec_OutletTemperature) AsApiIntercoolingSpecOutletTemperature0() (ApiIntercoolingSpecOutletTemperature0, error) {
+	var body ApiIntercoolingSpecOutletTemperature0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiIntercoolingSpecOutletTemperature0 overwrites any union data inside the ApiIntercoolingSpec_OutletTemperature as the provided ApiIntercoolingSpecOutletTemperature0
+func (t *ApiIntercoolingSpec_OutletTemperature) FromApiIntercoolingSpecOutletTemperature0(v ApiIntercoolingSpecOutletTemperature0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiIntercoolingSpecOutletTemperature0 performs a merge with any union data inside the ApiIntercoolingSpec_OutletTemperature, using the provided ApiIntercoolingSpecOutletTemperature0
+func (t *ApiIntercoolingSpec_OutletTemperature) MergeApiIntercoolingSpecOutletTemperature0(v ApiIntercoolingSpecOutletTemperature0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiIntercoolingSpecOutletTemperature1 returns the union data inside the ApiIntercoolingSpec_OutletTemperature as a ApiIntercoolingSpecOutletTemperature1
+func (t ApiIntercoolingSpec_OutletTemperature) AsApiIntercoolingSpecOutletTemperature1() (ApiIntercoolingSpecOutletTemperature1, error) {
+	var body ApiIntercoolingSpecOutletTemperature1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiIntercoolingSpecOutletTemperature1 overwrites any union data inside the ApiIntercoolingSpec_OutletTemperature as the provided ApiIntercoolingSpecOutletTemperature1
+func (t *ApiIntercoolingSpec_OutletTemperature) FromApiIntercoolingSpecOutletTemperature1(v ApiIntercoolingSpecOutletTemperature1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiIntercoolingSpecOutletTemperature1 performs a merge with any union data inside the ApiIntercoolingSpec_OutletTemperature, using the provided ApiIntercoolingSpecOutletTemperature1
+func (t *ApiIntercoolingSpec_OutletTemperature) MergeApiIntercoolingSpecOutletTemperature1(v ApiIntercoolingSpecOutletTemperature1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiIntercoolingSpec_OutletTemperature) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiIntercoolingSpec_OutletTemperature) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
+// AsApiIntercoolingSpecPressureDrop0 returns the union data inside the ApiIntercoolingSpec_PressureDrop as a ApiIntercoolingSpecPressureDrop0
+func (t ApiIntercoolingSpec_PressureDrop) AsApiIntercoolingSpecPressureDrop0() (ApiIntercoolingSpecPressureDrop0, error) {
+	var body ApiIntercoolingSpecPressureDrop0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiIntercoolingSpecPressureDrop0 overwrites any union data inside the ApiIntercoolingSpec_PressureDrop as the provided ApiIntercoolingSpecPressureDrop0
+func (t *ApiIntercoolingSpec_PressureDrop) FromApiIntercoolingSpecPressureDrop0(v ApiIntercoolingSpecPressureDrop0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiIntercoolingSpecPressureDrop0 performs a merge with any union data inside the ApiIntercoolingSpec_PressureDrop, using the provided ApiIntercoolingSpecPressureDrop0
+func (t *ApiIntercoolingSpec_PressureDrop) MergeApiIntercoolingSpecPressureDrop0(v ApiIntercoolingSpecPressureDrop0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiIntercoolingSpecPressureDrop1 returns the union data inside the ApiIntercoolingSpec_PressureDrop as a ApiIntercoolingSpecPressureDrop1
+func (t ApiIntercoolingSpec_PressureDrop) AsApiIntercoolingSpecPressureDrop1() (ApiIntercoolingSpecPressureDrop1, error) {
+	var body ApiIntercoolingSpecPressureDrop1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiIntercoolingSpecPressureDrop1 overwrites any union data inside the ApiIntercoolingSpec_PressureDrop as the provided ApiIntercoolingSpecPressureDrop1
+func (t *ApiIntercoolingSpec_PressureDrop) FromApiIntercoolingSpecPressureDrop1(v ApiIntercoolingSpecPressureDrop1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiIntercoolingSpecPressureDrop1 performs a merge with any union data inside the ApiIntercoolingSpec_PressureDrop, using the provided ApiIntercoolingSpecPressureDrop1
+func (t *ApiIntercoolingSpec_PressureDrop) MergeApiIntercoolingSpecPressureDrop1(v ApiIntercoolingSpecPressureDrop1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiIntercoolingSpec_PressureDrop) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiIntercoolingSpec_PressureDrop) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
+// AsApiMachineCoolerSpecCoolantTemperature0 returns the union data inside the ApiMachineCoolerSpec_CoolantTemperature as a ApiMachineCoolerSpecCoolantTemperature0
+func (t ApiMachineCoolerSpec_CoolantTemperature) AsApiMachineCoolerSpecCoolantTemperature0() (ApiMachineCoolerSpecCoolantTemperature0, error) {
+	var body ApiMachineCoolerSpecCoolantTemperature0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiMachineCoolerSpecCoolantTemperature0 overwrites any union data inside the ApiMachineCoolerSpec_CoolantTemperature as the provided ApiMachineCoolerSpecCoolantTemperature0
+func (t *ApiMachineCoolerSpec_CoolantTemperature) FromApiMachineCoolerSpecCoolantTemperature0(v ApiMachineCoolerSpecCoolantTemperature0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiMachineCoolerSpecCoolantTemperature0 performs a merge with any union data inside the ApiMachineCoolerSpec_CoolantTemperature, using the provided ApiMachineCoolerSpecCoolantTemperature0
+func (t *ApiMachineCoolerSpec_CoolantTemperature) MergeApiMachineCoolerSpecCoolantTemperature0(v ApiMachineCoolerSpecCoolantTemperature0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiMachineCoolerSpecCoolantTemperature1 returns the union data inside the ApiMachineCoolerSpec_CoolantTemperature as a ApiMachineCoolerSpecCoolantTemperature1
+func (t ApiMachineCoolerSpec_CoolantTemperature) AsApiMachineCoolerSpecCoolantTemperature1() (ApiMachineCoolerSpecCoolantTemperature1, error) {
+	var body ApiMachineCoolerSpecCoolantTemperature1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiMachineCoolerSpecCoolantTemperature1 overwrites any union data inside the ApiMachineCoolerSpec_CoolantTemperature as the provided ApiMachineCoolerSpecCoolantTemperature1
+func (t *ApiMachineCoolerSpec_CoolantTemperature) FromApiMachineCoolerSpecCoolantTemperature1(v ApiMachineCoolerSpecCoolantTemperature1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiMachineCoolerSpecCoolantTemperature1 performs a merge with any union data inside the ApiMachineCoolerSpec_CoolantTemperature, using the provided ApiMachineCoolerSpecCoolantTemperature1
+func (t *ApiMachineCoolerSpec_CoolantTemperature) MergeApiMachineCoolerSpecCoolantTemperature1(v ApiMachineCoolerSpecCoolantTemperature1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiMachineCoolerSpec_CoolantTemperature) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiMachineCoolerSpec_CoolantTemperature) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
+// AsApiMachineCoolerSpecOutletTemperature0 returns the union data inside the ApiMachineCoolerSpec_OutletTemperature as a ApiMachineCoolerSpecOutletTemperature0
+func (t ApiMachineCoolerSpec_OutletTemperature) AsApiMachineCoolerSpecOutletTemperature0() (ApiMachineCoolerSpecOutletTemperature0, error) {
+	var body ApiMachineCoolerSpecOutletTemperature0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiMachineCoolerSpecOutletTemperature0 overwrites any union data inside the ApiMachineCoolerSpec_OutletTemperature as the provided ApiMachineCoolerSpecOutletTemperature0
+func (t *ApiMachineCoolerSpec_OutletTemperature) FromApiMachineCoolerSpecOutletTemperature0(v ApiMachineCoolerSpecOutletTemperature0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiMachineCoolerSpecOutletTemperature0 performs a merge with any union data inside the ApiMachineCoolerSpec_OutletTemperature, using the provided ApiMachineCoolerSpecOutletTemperature0
+func (t *ApiMachineCoolerSpec_OutletTemperature) MergeApiMachineCoolerSpecOutletTemperature0(v ApiMachineCoolerSpecOutletTemperature0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiMachineCoolerSpecOutletTemperature1 returns the union data inside the ApiMachineCoolerSpec_OutletTemperature as a ApiMachineCoolerSpecOutletTemperature1
+func (t ApiMachineCoolerSpec_OutletTemperature) AsApiMachineCoolerSpecOutletTemperature1() (ApiMachineCoolerSpecOutletTemperature1, error) {
+	var body ApiMachineCoolerSpecOutletTemperature1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiMachineCoolerSpecOutletTemperature1 overwrites any union data inside the ApiMachineCoolerSpec_OutletTemperature as the provided ApiMachineCoolerSpecOutletTemperature1
+func (t *ApiMachineCoolerSpec_OutletTemperature) FromApiMachineCoolerSpecOutletTemperature1(v ApiMachineCoolerSpecOutletTemperature1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiMachineCoolerSpecOutletTemperature1 performs a merge with any union data inside the ApiMachineCoolerSpec_OutletTemperature, using the provided ApiMachineCoolerSpecOutletTemperature1
+func (t *ApiMachineCoolerSpec_OutletTemperature) MergeApiMachineCoolerSpecOutletTemperature1(v ApiMachineCoolerSpecOutletTemperature1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiMachineCoolerSpec_OutletTemperature) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiMachineCoolerSpec_OutletTemperature) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
+// AsApiMachineCoolerSpecPressureDrop0 returns the union data inside the ApiMachineCoolerSpec_PressureDrop as a ApiMachineCoolerSpecPressureDrop0
+func (t ApiMachineCoolerSpec_PressureDrop) AsApiMachineCoolerSpecPressureDrop0() (ApiMachineCoolerSpecPressureDrop0, error) {
+	var body ApiMachineCoolerSpecPressureDrop0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiMachineCoolerSpecPressureDrop0 overwrites any union data inside the ApiMachineCoolerSpec_PressureDrop as the provided ApiMachineCoolerSpecPressureDrop0
+func (t *ApiMachineCoolerSpec_PressureDrop) FromApiMachineCoolerSpecPressureDrop0(v ApiMachineCoolerSpecPressureDrop0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiMachineCoolerSpecPressureDrop0 performs a merge with any union data inside the ApiMachineCoolerSpec_PressureDrop, using the provided ApiMachineCoolerSpecPressureDrop0
+func (t *ApiMachineCoolerSpec_PressureDrop) MergeApiMachineCoolerSpecPressureDrop0(v ApiMachineCoolerSpecPressureDrop0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiMachineCoolerSpecPressureDrop1 returns the union data inside the ApiMachineCoolerSpec_PressureDrop as a ApiMachineCoolerSpecPressureDrop1
+func (t ApiMachineCoolerSpec_PressureDrop) AsApiMachineCoolerSpecPressureDrop1() (ApiMachineCoolerSpecPressureDrop1, error) {
+	var body ApiMachineCoolerSpecPressureDrop1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiMachineCoolerSpecPressureDrop1 overwrites any union data inside the ApiMachineCoolerSpec_PressureDrop as the provided ApiMachineCoolerSpecPressureDrop1
+func (t *ApiMachineCoolerSpec_PressureDrop) FromApiMachineCoolerSpecPressureDrop1(v ApiMachineCoolerSpecPressureDrop1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiMachineCoolerSpecPressureDrop1 performs a merge with any union data inside the ApiMachineCoolerSpec_PressureDrop, using the provided ApiMachineCoolerSpecPressureDrop1
+func (t *ApiMachineCoolerSpec_PressureDrop) MergeApiMachineCoolerSpecPressureDrop1(v ApiMachineCoolerSpecPressureDrop1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiMachineCoolerSpec_PressureDrop) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiMachineCoolerSpec_PressureDrop) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
+// AsApiMachineDriverSpecRating0 returns the union data inside the ApiMachineDriverSpec_Rating as a ApiMachineDriverSpecRating0
+func (t ApiMachineDriverSpec_Rating) AsApiMachineDriverSpecRating0() (ApiMachineDriverSpecRating0, error) {
+	var body ApiMachineDriverSpecRating0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiMachineDriverSpecRating0 overwrites any union data inside the ApiMachineDriverSpec_Rating as the provided ApiMachineDriverSpecRating0
+func (t *ApiMachineDriverSpec_Rating) FromApiMachineDriverSpecRating0(v ApiMachineDriverSpecRating0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiMachineDriverSpecRating0 performs a merge with any union data inside the ApiMachineDriverSpec_Rating, using the provided ApiMachineDriverSpecRating0
+func (t *ApiMachineDriverSpec_Rating) MergeApiMachineDriverSpecRating0(v ApiMachineDriverSpecRating0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiMachineDriverSpecRating1 returns the union data inside the ApiMachineDriverSpec_Rating as a ApiMachineDriverSpecRating1
+func (t ApiMachineDriverSpec_Rating) AsApiMachineDriverSpecRating1() (ApiMachineDriverSpecRating1, error) {
+	var body ApiMachineDriverSpecRating1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiMachineDriverSpecRating1 overwrites any union data inside the ApiMachineDriverSpec_Rating as the provided ApiMachineDriverSpecRating1
+func (t *ApiMachineDriverSpec_Rating) FromApiMachineDriverSpecRating1(v ApiMachineDriverSpecRating1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiMachineDriverSpecRating1 performs a merge with any union data inside the ApiMachineDriverSpec_Rating, using the provided ApiMachineDriverSpecRating1
+func (t *ApiMachineDriverSpec_Rating) MergeApiMachineDriverSpecRating1(v ApiMachineDriverSpecRating1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiMachineDriverSpec_Rating) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiMachineDriverSpec_Rating) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
+// AsApiMachineInletSpecDiameter0 returns the union data inside the ApiMachineInletSpec_Diameter as a ApiMachineInletSpecDiameter0
+func (t ApiMachineInletSpec_Diameter) AsApiMachineInletSpecDiameter0() (ApiMachineInletSpecDiameter0, error) {
+	var body ApiMachineInletSpecDiameter0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiMachineInletSpecDiameter0 overwrites any union data inside the ApiMachineInletSpec_Diameter as the provided ApiMachineInletSpecDiameter0
+func (t *ApiMachineInletSpec_Diameter) FromApiMachineInletSpecDiameter0(v ApiMachineInletSpecDiameter0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiMachineInletSpecDiameter0 performs a merge with any union data inside the ApiMachineInletSpec_Diameter, using the provided ApiMachineInletSpecDiameter0
+func (t *ApiMachineInletSpec_Diameter) MergeApiMachineInletSpecDiameter0(v ApiMachineInletSpecDiameter0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiMachineInletSpecDiameter1 returns the union data inside the ApiMachineInletSpec_Diameter as a ApiMachineInletSpecDiameter1
+func (t ApiMachineInletSpec_Diameter) AsApiMachineInletSpecDiameter1() (ApiMachineInletSpecDiameter1, error) {
+	var body ApiMachineInletSpecDiameter1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiMachineInletSpecDiameter1 overwrites any union data inside the ApiMachineInletSpec_Diameter as the provided ApiMachineInletSpecDiameter1
+func (t *ApiMachineInletSpec_Diameter) FromApiMachineInletSpecDiameter1(v ApiMachineInletSpecDiameter1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiMachineInletSpecDiameter1 performs a merge with any union data inside the ApiMachineInletSpec_Diameter, using the provided ApiMachineInletSpecDiameter1
+func (t *ApiMachineInletSpec_Diameter) MergeApiMachineInletSpecDiameter1(v ApiMachineInletSpecDiameter1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiMachineInletSpec_Diameter) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiMachineInletSpec_Diameter) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
+// AsApiMachineInletSpecEyeHubDiameter0 returns the union data inside the ApiMachineInletSpec_EyeHubDiameter as a ApiMachineInletSpecEyeHubDiameter0
+func (t ApiMachineInletSpec_EyeHubDiameter) AsApiMachineInletSpecEyeHubDiameter0() (ApiMachineInletSpecEyeHubDiameter0, error) {
+	var body ApiMachineInletSpecEyeHubDiameter0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiMachineInletSpecEyeHubDiameter0 overwrites any union data inside the ApiMachineInletSpec_EyeHubDiameter as the provided ApiMachineInletSpecEyeHubDiameter0
+func (t *ApiMachineInletSpec_EyeHubDiameter) FromApiMachineInletSpecEyeHubDiameter0(v ApiMachineInletSpecEyeHubDiameter0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiMachineInletSpecEyeHubDiameter0 performs a merge with any union data inside the ApiMachineInletSpec_EyeHubDiameter, using the provided ApiMachineInletSpecEyeHubDiameter0
+func (t *ApiMachineInletSpec_EyeHubDiameter) MergeApiMachineInletSpecEyeHubDiameter0(v ApiMachineInletSpecEyeHubDiameter0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiMachineInletSpecEyeHubDiameter1 returns the union data inside the ApiMachineInletSpec_EyeHubDiameter as a ApiMachineInletSpecEyeHubDiameter1
+func (t ApiMachineInletSpec_EyeHubDiameter) AsApiMachineInletSpecEyeHubDiameter1() (ApiMachineInletSpecEyeHubDiameter1, error) {
+	var body ApiMachineInletSpecEyeHubDiameter1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiMachineInletSpecEyeHubDiameter1 overwrites any union data inside the ApiMachineInletSpec_EyeHubDiameter as the provided ApiMachineInletSpecEyeHubDiameter1
+func (t *ApiMachineInletSpec_EyeHubDiameter) FromApiMachineInletSpecEyeHubDiameter1(v ApiMachineInletSpecEyeHubDiameter1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiMachineInletSpecEyeHubDiameter1 performs a merge with any union data inside the ApiMachineInletSpec_EyeHubDiameter, using the provided ApiMachineInletSpecEyeHubDiameter1
+func (t *ApiMachineInletSpec_EyeHubDiameter) MergeApiMachineInletSpecEyeHubDiameter1(v ApiMachineInletSpecEyeHubDiameter1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiMachineInletSpec_EyeHubDiameter) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiMachineInletSpec_EyeHubDiameter) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
+// AsApiMachineInletSpecEyeTipDiameter0 returns the union data inside the ApiMachineInletSpec_EyeTipDiameter as a ApiMachineInletSpecEyeTipDiameter0
+func (t ApiMachineInletSpec_EyeTipDiameter) AsApiMachineInletSpecEyeTipDiameter0() (ApiMachineInletSpecEyeTipDiameter0, error) {
+	var body ApiMachineInletSpecEyeTipDiameter0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiMachineInletSpecEyeTipDiameter0 overwrites any union data inside the ApiMachineInletSpec_EyeTipDiameter as the provided ApiMachineInletSpecEyeTipDiameter0
+func (t *ApiMachineInletSpec_EyeTipDiameter) FromApiMachineInletSpecEyeTipDiameter0(v ApiMachineInletSpecEyeTipDiameter0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiMachineInletSpecEyeTipDiameter0 performs a merge with any union data inside the ApiMachineInletSpec_EyeTipDiameter, using the provided ApiMachineInletSpecEyeTipDiameter0
+func (t *ApiMachineInletSpec_EyeTipDiameter) MergeApiMachineInletSpecEyeTipDiameter0(v ApiMachineInletSpecEyeTipDiameter0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiMachineInletSpecEyeTipDiameter1 returns the union data inside the ApiMachineInletSpec_EyeTipDiameter as a ApiMachineInletSpecEyeTipDiameter1
+func (t ApiMachineInletSpec_EyeTipDiameter) AsApiMachineInletSpecEyeTipDiameter1() (ApiMachineInletSpecEyeTipDiameter1, error) {
+	var body ApiMachineInletSpecEyeTipDiameter1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiMachineInletSpecEyeTipDiameter1 overwrites any union data inside the ApiMachineInletSpec_EyeTipDiameter as the provided ApiMachineInletSpecEyeTipDiameter1
+func (t *ApiMachineInletSpec_EyeTipDiameter) FromApiMachineInletSpecEyeTipDiameter1(v ApiMachineInletSpecEyeTipDiameter1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiMachineInletSpecEyeTipDiameter1 performs a merge with any union data inside the ApiMachineInletSpec_EyeTipDiameter, using the provided ApiMachineInletSpecEyeTipDiameter1
+func (t *ApiMachineInletSpec_EyeTipDiameter) MergeApiMachineInletSpecEyeTipDiameter1(v ApiMachineInletSpecEyeTipDiameter1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiMachineInletSpec_EyeTipDiameter) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiMachineInletSpec_EyeTipDiameter) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
+// AsApiMachineInletSpecWidth0 returns the union data inside the ApiMachineInletSpec_Width as a ApiMachineInletSpecWidth0
+func (t ApiMachineInletSpec_Width) AsApiMachineInletSpecWidth0() (ApiMachineInletSpecWidth0, error) {
+	var body ApiMachineInletSpecWidth0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiMachineInletSpecWidth0 overwrites any union data inside the ApiMachineInletSpec_Width as the provided ApiMachineInletSpecWidth0
+func (t *ApiMachineInletSpec_Width) FromApiMachineInletSpecWidth0(v ApiMachineInletSpecWidth0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiMachineInletSpecWidth0 performs a merge with any union data inside the ApiMachineInletSpec_Width, using the provided ApiMachineInletSpecWidth0
+func (t *ApiMachineInletSpec_Width) MergeApiMachineInletSpecWidth0(v ApiMachineInletSpecWidth0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiMachineInletSpecWidth1 returns the union data inside the ApiMachineInletSpec_Width as a ApiMachineInletSpecWidth1
+func (t ApiMachineInletSpec_Width) AsApiMachineInletSpecWidth1() (ApiMachineInletSpecWidth1, error) {
+	var body ApiMachineInletSpecWidth1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiMachineInletSpecWidth1 overwrites any union data inside the ApiMachineInletSpec_Width as the provided ApiMachineInletSpecWidth1
+func (t *ApiMachineInletSpec_Width) FromApiMachineInletSpecWidth1(v ApiMachineInletSpecWidth1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiMachineInletSpecWidth1 performs a merge with any union data inside the ApiMachineInletSpec_Width, using the provided ApiMachineInletSpecWidth1
+func (t *ApiMachineInletSpec_Width) MergeApiMachineInletSpecWidth1(v ApiMachineInletSpecWidth1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiMachineInletSpec_Width) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiMachineInletSpec_Width) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
+// AsApiMachineStageSpecExitWidth0 returns the union data inside the ApiMachineStageSpec_ExitWidth as a ApiMachineStageSpecExitWidth0
+func (t ApiMachineStageSpec_ExitWidth) AsApiMachineStageSpecExitWidth0() (ApiMachineStageSpecExitWidth0, error) {
+	var body ApiMachineStageSpecExitWidth0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiMachineStageSpecExitWidth0 overwrites any union data inside the ApiMachineStageSpec_ExitWidth as the provided ApiMachineStageSpecExitWidth0
+func (t *ApiMachineStageSpec_ExitWidth) FromApiMachineStageSpecExitWidth0(v ApiMachineStageSpecExitWidth0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiMachineStageSpecExitWidth0 performs a merge with any union data inside the ApiMachineStageSpec_ExitWidth, using the provided ApiMachineStageSpecExitWidth0
+func (t *ApiMachineStageSpec_ExitWidth) MergeApiMachineStageSpecExitWidth0(v ApiMachineStageSpecExitWidth0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiMachineStageSpecExitWidth1 returns the union data inside the ApiMachineStageSpec_ExitWidth as a ApiMachineStageSpecExitWidth1
+func (t ApiMachineStageSpec_ExitWidth) AsApiMachineStageSpecExitWidth1() (ApiMachineStageSpecExitWidth1, error) {
+	var body ApiMachineStageSpecExitWidth1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiMachineStageSpecExitWidth1 overwrites any union data inside the ApiMachineStageSpec_ExitWidth as the provided ApiMachineStageSpecExitWidth1
+func (t *ApiMachineStageSpec_ExitWidth) FromApiMachineStageSpecExitWidth1(v ApiMachineStageSpecExitWidth1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiMachineStageSpecExitWidth1 performs a merge with any union data inside the ApiMachineStageSpec_ExitWidth, using the provided ApiMachineStageSpecExitWidth1
+func (t *ApiMachineStageSpec_ExitWidth) MergeApiMachineStageSpecExitWidth1(v ApiMachineStageSpecExitWidth1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiMachineStageSpec_ExitWidth) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiMachineStageSpec_ExitWidth) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
+// AsApiMachineStageSpecTipDiameter0 returns the union data inside the ApiMachineStageSpec_TipDiameter as a ApiMachineStageSpecTipDiameter0
+func (t ApiMachineStageSpec_TipDiameter) AsApiMachineStageSpecTipDiameter0() (ApiMachineStageSpecTipDiameter0, error) {
+	var body ApiMachineStageSpecTipDiameter0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiMachineStageSpecTipDiameter0 overwrites any union data inside the ApiMachineStageSpec_TipDiameter as the provided ApiMachineStageSpecTipDiameter0
+func (t *ApiMachineStageSpec_TipDiameter) FromApiMachineStageSpecTipDiameter0(v ApiMachineStageSpecTipDiameter0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiMachineStageSpecTipDiameter0 performs a merge with any union data inside the ApiMachineStageSpec_TipDiameter, using the provided ApiMachineStageSpecTipDiameter0
+func (t *ApiMachineStageSpec_TipDiameter) MergeApiMachineStageSpecTipDiameter0(v ApiMachineStageSpecTipDiameter0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiMachineStageSpecTipDiameter1 returns the union data inside the ApiMachineStageSpec_TipDiameter as a ApiMachineStageSpecTipDiameter1
+func (t ApiMachineStageSpec_TipDiameter) AsApiMachineStageSpecTipDiameter1() (ApiMachineStageSpecTipDiameter1, error) {
+	var body ApiMachineStageSpecTipDiameter1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiMachineStageSpecTipDiameter1 overwrites any union data inside the ApiMachineStageSpec_TipDiameter as the provided ApiMachineStageSpecTipDiameter1
+func (t *ApiMachineStageSpec_TipDiameter) FromApiMachineStageSpecTipDiameter1(v ApiMachineStageSpecTipDiameter1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiMachineStageSpecTipDiameter1 performs a merge with any union data inside the ApiMachineStageSpec_TipDiameter, using the provided ApiMachineStageSpecTipDiameter1
+func (t *ApiMachineStageSpec_TipDiameter) MergeApiMachineStageSpecTipDiameter1(v ApiMachineStageSpecTipDiameter1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiMachineStageSpec_TipDiameter) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiMachineStageSpec_TipDiameter) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
 // AsApiPropertiesRequestAmbient0 returns the union data inside the ApiPropertiesRequest_Ambient as a ApiPropertiesRequestAmbient0
 func (t ApiPropertiesRequest_Ambient) AsApiPropertiesRequestAmbient0() (ApiPropertiesRequestAmbient0, error) {
 	var body ApiPropertiesRequestAmbient0
@@ -2358,6 +4373,378 @@ func (t ApiPropertiesRequest_Temperature) MarshalJSON() ([]byte, error) {
 }
 
 func (t *ApiPropertiesRequest_Temperature) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
+// AsApiSectionRequestDischargePressure0 returns the union data inside the ApiSectionRequest_DischargePressure as a ApiSectionRequestDischargePressure0
+func (t ApiSectionRequest_DischargePressure) AsApiSectionRequestDischargePressure0() (ApiSectionRequestDischargePressure0, error) {
+	var body ApiSectionRequestDischargePressure0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiSectionRequestDischargePressure0 overwrites any union data inside the ApiSectionRequest_DischargePressure as the provided ApiSectionRequestDischargePressure0
+func (t *ApiSectionRequest_DischargePressure) FromApiSectionRequestDischargePressure0(v ApiSectionRequestDischargePressure0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiSectionRequestDischargePressure0 performs a merge with any union data inside the ApiSectionRequest_DischargePressure, using the provided ApiSectionRequestDischargePressure0
+func (t *ApiSectionRequest_DischargePressure) MergeApiSectionRequestDischargePressure0(v ApiSectionRequestDischargePressure0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiSectionRequestDischargePressure1 returns the union data inside the ApiSectionRequest_DischargePressure as a ApiSectionRequestDischargePressure1
+func (t ApiSectionRequest_DischargePressure) AsApiSectionRequestDischargePressure1() (ApiSectionRequestDischargePressure1, error) {
+	var body ApiSectionRequestDischargePressure1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiSectionRequestDischargePressure1 overwrites any union data inside the ApiSectionRequest_DischargePressure as the provided ApiSectionRequestDischargePressure1
+func (t *ApiSectionRequest_DischargePressure) FromApiSectionRequestDischargePressure1(v ApiSectionRequestDischargePressure1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiSectionRequestDischargePressure1 performs a merge with any union data inside the ApiSectionRequest_DischargePressure, using the provided ApiSectionRequestDischargePressure1
+func (t *ApiSectionRequest_DischargePressure) MergeApiSectionRequestDischargePressure1(v ApiSectionRequestDischargePressure1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiSectionRequest_DischargePressure) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiSectionRequest_DischargePressure) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
+// AsApiSectionRequestMechanicalLosses0 returns the union data inside the ApiSectionRequest_MechanicalLosses as a ApiSectionRequestMechanicalLosses0
+func (t ApiSectionRequest_MechanicalLosses) AsApiSectionRequestMechanicalLosses0() (ApiSectionRequestMechanicalLosses0, error) {
+	var body ApiSectionRequestMechanicalLosses0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiSectionRequestMechanicalLosses0 overwrites any union data inside the ApiSectionRequest_MechanicalLosses as the provided ApiSectionRequestMechanicalLosses0
+func (t *ApiSectionRequest_MechanicalLosses) FromApiSectionRequestMechanicalLosses0(v ApiSectionRequestMechanicalLosses0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiSectionRequestMechanicalLosses0 performs a merge with any union data inside the ApiSectionRequest_MechanicalLosses, using the provided ApiSectionRequestMechanicalLosses0
+func (t *ApiSectionRequest_MechanicalLosses) MergeApiSectionRequestMechanicalLosses0(v ApiSectionRequestMechanicalLosses0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiSectionRequestMechanicalLosses1 returns the union data inside the ApiSectionRequest_MechanicalLosses as a ApiSectionRequestMechanicalLosses1
+func (t ApiSectionRequest_MechanicalLosses) AsApiSectionRequestMechanicalLosses1() (ApiSectionRequestMechanicalLosses1, error) {
+	var body ApiSectionRequestMechanicalLosses1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiSectionRequestMechanicalLosses1 overwrites any union data inside the ApiSectionRequest_MechanicalLosses as the provided ApiSectionRequestMechanicalLosses1
+func (t *ApiSectionRequest_MechanicalLosses) FromApiSectionRequestMechanicalLosses1(v ApiSectionRequestMechanicalLosses1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiSectionRequestMechanicalLosses1 performs a merge with any union data inside the ApiSectionRequest_MechanicalLosses, using the provided ApiSectionRequestMechanicalLosses1
+func (t *ApiSectionRequest_MechanicalLosses) MergeApiSectionRequestMechanicalLosses1(v ApiSectionRequestMechanicalLosses1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiSectionRequest_MechanicalLosses) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiSectionRequest_MechanicalLosses) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
+// AsApiSectionRequestSpeed0 returns the union data inside the ApiSectionRequest_Speed as a ApiSectionRequestSpeed0
+func (t ApiSectionRequest_Speed) AsApiSectionRequestSpeed0() (ApiSectionRequestSpeed0, error) {
+	var body ApiSectionRequestSpeed0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiSectionRequestSpeed0 overwrites any union data inside the ApiSectionRequest_Speed as the provided ApiSectionRequestSpeed0
+func (t *ApiSectionRequest_Speed) FromApiSectionRequestSpeed0(v ApiSectionRequestSpeed0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiSectionRequestSpeed0 performs a merge with any union data inside the ApiSectionRequest_Speed, using the provided ApiSectionRequestSpeed0
+func (t *ApiSectionRequest_Speed) MergeApiSectionRequestSpeed0(v ApiSectionRequestSpeed0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiSectionRequestSpeed1 returns the union data inside the ApiSectionRequest_Speed as a ApiSectionRequestSpeed1
+func (t ApiSectionRequest_Speed) AsApiSectionRequestSpeed1() (ApiSectionRequestSpeed1, error) {
+	var body ApiSectionRequestSpeed1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiSectionRequestSpeed1 overwrites any union data inside the ApiSectionRequest_Speed as the provided ApiSectionRequestSpeed1
+func (t *ApiSectionRequest_Speed) FromApiSectionRequestSpeed1(v ApiSectionRequestSpeed1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiSectionRequestSpeed1 performs a merge with any union data inside the ApiSectionRequest_Speed, using the provided ApiSectionRequestSpeed1
+func (t *ApiSectionRequest_Speed) MergeApiSectionRequestSpeed1(v ApiSectionRequestSpeed1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiSectionRequest_Speed) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiSectionRequest_Speed) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
+// AsApiSectionRequestTipDiameter0 returns the union data inside the ApiSectionRequest_TipDiameter as a ApiSectionRequestTipDiameter0
+func (t ApiSectionRequest_TipDiameter) AsApiSectionRequestTipDiameter0() (ApiSectionRequestTipDiameter0, error) {
+	var body ApiSectionRequestTipDiameter0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiSectionRequestTipDiameter0 overwrites any union data inside the ApiSectionRequest_TipDiameter as the provided ApiSectionRequestTipDiameter0
+func (t *ApiSectionRequest_TipDiameter) FromApiSectionRequestTipDiameter0(v ApiSectionRequestTipDiameter0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiSectionRequestTipDiameter0 performs a merge with any union data inside the ApiSectionRequest_TipDiameter, using the provided ApiSectionRequestTipDiameter0
+func (t *ApiSectionRequest_TipDiameter) MergeApiSectionRequestTipDiameter0(v ApiSectionRequestTipDiameter0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiSectionRequestTipDiameter1 returns the union data inside the ApiSectionRequest_TipDiameter as a ApiSectionRequestTipDiameter1
+func (t ApiSectionRequest_TipDiameter) AsApiSectionRequestTipDiameter1() (ApiSectionRequestTipDiameter1, error) {
+	var body ApiSectionRequestTipDiameter1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiSectionRequestTipDiameter1 overwrites any union data inside the ApiSectionRequest_TipDiameter as the provided ApiSectionRequestTipDiameter1
+func (t *ApiSectionRequest_TipDiameter) FromApiSectionRequestTipDiameter1(v ApiSectionRequestTipDiameter1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiSectionRequestTipDiameter1 performs a merge with any union data inside the ApiSectionRequest_TipDiameter, using the provided ApiSectionRequestTipDiameter1
+func (t *ApiSectionRequest_TipDiameter) MergeApiSectionRequestTipDiameter1(v ApiSectionRequestTipDiameter1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiSectionRequest_TipDiameter) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiSectionRequest_TipDiameter) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
+// AsApiSpeedRangeSpecMaximumContinuous0 returns the union data inside the ApiSpeedRangeSpec_MaximumContinuous as a ApiSpeedRangeSpecMaximumContinuous0
+func (t ApiSpeedRangeSpec_MaximumContinuous) AsApiSpeedRangeSpecMaximumContinuous0() (ApiSpeedRangeSpecMaximumContinuous0, error) {
+	var body ApiSpeedRangeSpecMaximumContinuous0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiSpeedRangeSpecMaximumContinuous0 overwrites any union data inside the ApiSpeedRangeSpec_MaximumContinuous as the provided ApiSpeedRangeSpecMaximumContinuous0
+func (t *ApiSpeedRangeSpec_MaximumContinuous) FromApiSpeedRangeSpecMaximumContinuous0(v ApiSpeedRangeSpecMaximumContinuous0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiSpeedRangeSpecMaximumContinuous0 performs a merge with any union data inside the ApiSpeedRangeSpec_MaximumContinuous, using the provided ApiSpeedRangeSpecMaximumContinuous0
+func (t *ApiSpeedRangeSpec_MaximumContinuous) MergeApiSpeedRangeSpecMaximumContinuous0(v ApiSpeedRangeSpecMaximumContinuous0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiSpeedRangeSpecMaximumContinuous1 returns the union data inside the ApiSpeedRangeSpec_MaximumContinuous as a ApiSpeedRangeSpecMaximumContinuous1
+func (t ApiSpeedRangeSpec_MaximumContinuous) AsApiSpeedRangeSpecMaximumContinuous1() (ApiSpeedRangeSpecMaximumContinuous1, error) {
+	var body ApiSpeedRangeSpecMaximumContinuous1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiSpeedRangeSpecMaximumContinuous1 overwrites any union data inside the ApiSpeedRangeSpec_MaximumContinuous as the provided ApiSpeedRangeSpecMaximumContinuous1
+func (t *ApiSpeedRangeSpec_MaximumContinuous) FromApiSpeedRangeSpecMaximumContinuous1(v ApiSpeedRangeSpecMaximumContinuous1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiSpeedRangeSpecMaximumContinuous1 performs a merge with any union data inside the ApiSpeedRangeSpec_MaximumContinuous, using the provided ApiSpeedRangeSpecMaximumContinuous1
+func (t *ApiSpeedRangeSpec_MaximumContinuous) MergeApiSpeedRangeSpecMaximumContinuous1(v ApiSpeedRangeSpecMaximumContinuous1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiSpeedRangeSpec_MaximumContinuous) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiSpeedRangeSpec_MaximumContinuous) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
+// AsApiSpeedRangeSpecMinimum0 returns the union data inside the ApiSpeedRangeSpec_Minimum as a ApiSpeedRangeSpecMinimum0
+func (t ApiSpeedRangeSpec_Minimum) AsApiSpeedRangeSpecMinimum0() (ApiSpeedRangeSpecMinimum0, error) {
+	var body ApiSpeedRangeSpecMinimum0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiSpeedRangeSpecMinimum0 overwrites any union data inside the ApiSpeedRangeSpec_Minimum as the provided ApiSpeedRangeSpecMinimum0
+func (t *ApiSpeedRangeSpec_Minimum) FromApiSpeedRangeSpecMinimum0(v ApiSpeedRangeSpecMinimum0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiSpeedRangeSpecMinimum0 performs a merge with any union data inside the ApiSpeedRangeSpec_Minimum, using the provided ApiSpeedRangeSpecMinimum0
+func (t *ApiSpeedRangeSpec_Minimum) MergeApiSpeedRangeSpecMinimum0(v ApiSpeedRangeSpecMinimum0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiSpeedRangeSpecMinimum1 returns the union data inside the ApiSpeedRangeSpec_Minimum as a ApiSpeedRangeSpecMinimum1
+func (t ApiSpeedRangeSpec_Minimum) AsApiSpeedRangeSpecMinimum1() (ApiSpeedRangeSpecMinimum1, error) {
+	var body ApiSpeedRangeSpecMinimum1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiSpeedRangeSpecMinimum1 overwrites any union data inside the ApiSpeedRangeSpec_Minimum as the provided ApiSpeedRangeSpecMinimum1
+func (t *ApiSpeedRangeSpec_Minimum) FromApiSpeedRangeSpecMinimum1(v ApiSpeedRangeSpecMinimum1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiSpeedRangeSpecMinimum1 performs a merge with any union data inside the ApiSpeedRangeSpec_Minimum, using the provided ApiSpeedRangeSpecMinimum1
+func (t *ApiSpeedRangeSpec_Minimum) MergeApiSpeedRangeSpecMinimum1(v ApiSpeedRangeSpecMinimum1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiSpeedRangeSpec_Minimum) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiSpeedRangeSpec_Minimum) UnmarshalJSON(b []byte) error {
 	err := t.union.UnmarshalJSON(b)
 	return err
 }
@@ -2914,6 +5301,24 @@ type ClientInterface interface {
 	// Corresponds with POST /v1/gas/properties (the `GasProperties` operationId).
 	GasProperties(ctx context.Context, body GasPropertiesJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error)
 
+	// SizeSectionWithBody Size a multi-stage section with intercooling
+	//
+	// Turns a duty too big for one impeller into a section: the stage count (given, or the least for which every stage stays inside its levels: tip speed, stage pressure ratio and head, discharge temperature, flow-coefficient band), the split (equal polytropic head), coolers between stages (outlet temperature or coolant + approach, pressure drop, condensate removed by a flash at the outlet), every stage's full answer, the section totals (mechanical losses once per shaft), warnings and the machine as built for /v1/machine/rate, /map and /check. "geared" gives each stage its own speed; "inline" one shaft speed. Results are preliminary estimates; see the cautions field.
+	//
+	// Takes any type of body and a specified content type.
+	//
+	// Corresponds with POST /v1/section/size (the `SizeSection` operationId).
+	SizeSectionWithBody(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*http.Response, error)
+
+	// SizeSection Size a multi-stage section with intercooling
+	//
+	// Turns a duty too big for one impeller into a section: the stage count (given, or the least for which every stage stays inside its levels: tip speed, stage pressure ratio and head, discharge temperature, flow-coefficient band), the split (equal polytropic head), coolers between stages (outlet temperature or coolant + approach, pressure drop, condensate removed by a flash at the outlet), every stage's full answer, the section totals (mechanical losses once per shaft), warnings and the machine as built for /v1/machine/rate, /map and /check. "geared" gives each stage its own speed; "inline" one shaft speed. Results are preliminary estimates; see the cautions field.
+	//
+	// Takes a body of the `application/json` content type.
+	//
+	// Corresponds with POST /v1/section/size (the `SizeSection` operationId).
+	SizeSection(ctx context.Context, body SizeSectionJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error)
+
 	// SizeStageWithBody Size one centrifugal stage for a gas duty
 	//
 	// Turns a gas duty (gas, suction state, discharge pressure or pressure ratio, flow, speed, efficiency) and impeller choices (blade exit angle, slip factor, power input factor, inlet) into the tip speed and diameters, inlet and exit widths, heads, discharge temperature, gas and shaft power, driver rating, every limit check with its margin, warnings and provenance. Physical inputs are SI numbers or strings with a unit ("35 degC", "14.7 psia"). Results are preliminary estimates; see the cautions field.
@@ -3050,6 +5455,44 @@ func (c *Client) GasPropertiesWithBody(ctx context.Context, contentType string, 
 // Corresponds with POST /v1/gas/properties (the `GasProperties` operationId).
 func (c *Client) GasProperties(ctx context.Context, body GasPropertiesJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error) {
 	req, err := NewGasPropertiesRequest(c.Server, body)
+	if err != nil {
+		return nil, err
+	}
+	req = req.WithContext(ctx)
+	if err := c.applyEditors(ctx, req, reqEditors); err != nil {
+		return nil, err
+	}
+	return c.Client.Do(req)
+}
+
+// SizeSectionWithBody Size a multi-stage section with intercooling
+//
+// Turns a duty too big for one impeller into a section: the stage count (given, or the least for which every stage stays inside its levels: tip speed, stage pressure ratio and head, discharge temperature, flow-coefficient band), the split (equal polytropic head), coolers between stages (outlet temperature or coolant + approach, pressure drop, condensate removed by a flash at the outlet), every stage's full answer, the section totals (mechanical losses once per shaft), warnings and the machine as built for /v1/machine/rate, /map and /check. "geared" gives each stage its own speed; "inline" one shaft speed. Results are preliminary estimates; see the cautions field.
+//
+// Takes any type of body and a specified content type.
+//
+// Corresponds with POST /v1/section/size (the `SizeSection` operationId).
+func (c *Client) SizeSectionWithBody(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*http.Response, error) {
+	req, err := NewSizeSectionRequestWithBody(c.Server, contentType, body)
+	if err != nil {
+		return nil, err
+	}
+	req = req.WithContext(ctx)
+	if err := c.applyEditors(ctx, req, reqEditors); err != nil {
+		return nil, err
+	}
+	return c.Client.Do(req)
+}
+
+// SizeSection Size a multi-stage section with intercooling
+//
+// Turns a duty too big for one impeller into a section: the stage count (given, or the least for which every stage stays inside its levels: tip speed, stage pressure ratio and head, discharge temperature, flow-coefficient band), the split (equal polytropic head), coolers between stages (outlet temperature or coolant + approach, pressure drop, condensate removed by a flash at the outlet), every stage's full answer, the section totals (mechanical losses once per shaft), warnings and the machine as built for /v1/machine/rate, /map and /check. "geared" gives each stage its own speed; "inline" one shaft speed. Results are preliminary estimates; see the cautions field.
+//
+// Takes a body of the `application/json` content type.
+//
+// Corresponds with POST /v1/section/size (the `SizeSection` operationId).
+func (c *Client) SizeSection(ctx context.Context, body SizeSectionJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error) {
+	req, err := NewSizeSectionRequest(c.Server, body)
 	if err != nil {
 		return nil, err
 	}
@@ -3299,6 +5742,46 @@ func NewGasPropertiesRequestWithBody(server string, contentType string, body io.
 	return req, nil
 }
 
+// NewSizeSectionRequest calls the generic SizeSection builder with application/json body
+func NewSizeSectionRequest(server string, body SizeSectionJSONRequestBody) (*http.Request, error) {
+	var bodyReader io.Reader
+	buf, err := json.Marshal(body)
+	if err != nil {
+		return nil, err
+	}
+	bodyReader = bytes.NewReader(buf)
+	return NewSizeSectionRequestWithBody(server, "application/json", bodyReader)
+}
+
+// NewSizeSectionRequestWithBody constructs an http.Request for the SizeSection method, with any body, and a specified content type
+func NewSizeSectionRequestWithBody(server string, contentType string, body io.Reader) (*http.Request, error) {
+	var err error
+
+	serverURL, err := url.Parse(server)
+	if err != nil {
+		return nil, err
+	}
+
+	operationPath := fmt.Sprintf("/v1/section/size")
+	if operationPath[0] == '/' {
+		operationPath = "." + operationPath
+	}
+
+	queryURL, err := serverURL.Parse(operationPath)
+	if err != nil {
+		return nil, err
+	}
+
+	req, err := http.NewRequest(http.MethodPost, queryURL.String(), body)
+	if err != nil {
+		return nil, err
+	}
+
+	req.Header.Add("Content-Type", contentType)
+
+	return req, nil
+}
+
 // NewSizeStageRequest calls the generic SizeStage builder with application/json body
 func NewSizeStageRequest(server string, body SizeStageJSONRequestBody) (*http.Request, error) {
 	var bodyReader io.Reader
@@ -3501,6 +5984,24 @@ type ClientWithResponsesInterface interface {
 	//
 	// Corresponds with POST /v1/gas/properties (the `GasProperties` operationId).
 	GasPropertiesWithResponse(ctx context.Context, body GasPropertiesJSONRequestBody, reqEditors ...RequestEditorFn) (*GasPropertiesResponse, error)
+
+	// SizeSectionWithBodyWithResponse Size a multi-stage section with intercooling
+	//
+	// Turns a duty too big for one impeller into a section: the stage count (given, or the least for which every stage stays inside its levels: tip speed, stage pressure ratio and head, discharge temperature, flow-coefficient band), the split (equal polytropic head), coolers between stages (outlet temperature or coolant + approach, pressure drop, condensate removed by a flash at the outlet), every stage's full answer, the section totals (mechanical losses once per shaft), warnings and the machine as built for /v1/machine/rate, /map and /check. "geared" gives each stage its own speed; "inline" one shaft speed. Results are preliminary estimates; see the cautions field.
+	//
+	// Takes any type of body and a specified content type, and returns a wrapper object for the known response body format(s).
+	//
+	// Corresponds with POST /v1/section/size (the `SizeSection` operationId).
+	SizeSectionWithBodyWithResponse(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*SizeSectionResponse, error)
+
+	// SizeSectionWithResponse Size a multi-stage section with intercooling
+	//
+	// Turns a duty too big for one impeller into a section: the stage count (given, or the least for which every stage stays inside its levels: tip speed, stage pressure ratio and head, discharge temperature, flow-coefficient band), the split (equal polytropic head), coolers between stages (outlet temperature or coolant + approach, pressure drop, condensate removed by a flash at the outlet), every stage's full answer, the section totals (mechanical losses once per shaft), warnings and the machine as built for /v1/machine/rate, /map and /check. "geared" gives each stage its own speed; "inline" one shaft speed. Results are preliminary estimates; see the cautions field.
+	//
+	// Takes a body of the `application/json` content type, and returns a wrapper object for the known response body format(s).
+	//
+	// Corresponds with POST /v1/section/size (the `SizeSection` operationId).
+	SizeSectionWithResponse(ctx context.Context, body SizeSectionJSONRequestBody, reqEditors ...RequestEditorFn) (*SizeSectionResponse, error)
 
 	// SizeStageWithBodyWithResponse Size one centrifugal stage for a gas duty
 	//
@@ -3814,6 +6315,96 @@ func (r GasPropertiesResponse) ContentType() string {
 	return ""
 }
 
+type SizeSectionResponse struct {
+	Body         []byte
+	HTTPResponse *http.Response
+	// JSON200 the response for an HTTP 200 `application/json` response
+	JSON200 *ApiSectionResponse
+	// ApplicationproblemJSON400 the response for an HTTP 400 `application/problem+json` response
+	ApplicationproblemJSON400 *ApiProblem
+	// ApplicationproblemJSON401 the response for an HTTP 401 `application/problem+json` response
+	ApplicationproblemJSON401 *ApiProblem
+	// ApplicationproblemJSON413 the response for an HTTP 413 `application/problem+json` response
+	ApplicationproblemJSON413 *ApiProblem
+	// ApplicationproblemJSON422 the response for an HTTP 422 `application/problem+json` response
+	ApplicationproblemJSON422 *ApiProblem
+	// ApplicationproblemJSON500 the response for an HTTP 500 `application/problem+json` response
+	ApplicationproblemJSON500 *ApiProblem
+	// ApplicationproblemJSON503 the response for an HTTP 503 `application/problem+json` response
+	ApplicationproblemJSON503 *ApiProblem
+	// ApplicationproblemJSON504 the response for an HTTP 504 `application/problem+json` response
+	ApplicationproblemJSON504 *ApiProblem
+}
+
+// GetJSON200 returns the response for an HTTP 200 `application/json` response
+func (r SizeSectionResponse) GetJSON200() *ApiSectionResponse {
+	return r.JSON200
+}
+
+// GetApplicationproblemJSON400 returns the response for an HTTP 400 `application/problem+json` response
+func (r SizeSectionResponse) GetApplicationproblemJSON400() *ApiProblem {
+	return r.ApplicationproblemJSON400
+}
+
+// GetApplicationproblemJSON401 returns the response for an HTTP 401 `application/problem+json` response
+func (r SizeSectionResponse) GetApplicationproblemJSON401() *ApiProblem {
+	return r.ApplicationproblemJSON401
+}
+
+// GetApplicationproblemJSON413 returns the response for an HTTP 413 `application/problem+json` response
+func (r SizeSectionResponse) GetApplicationproblemJSON413() *ApiProblem {
+	return r.ApplicationproblemJSON413
+}
+
+// GetApplicationproblemJSON422 returns the response for an HTTP 422 `application/problem+json` response
+func (r SizeSectionResponse) GetApplicationproblemJSON422() *ApiProblem {
+	return r.ApplicationproblemJSON422
+}
+
+// GetApplicationproblemJSON500 returns the response for an HTTP 500 `application/problem+json` response
+func (r SizeSectionResponse) GetApplicationproblemJSON500() *ApiProblem {
+	return r.ApplicationproblemJSON500
+}
+
+// GetApplicationproblemJSON503 returns the response for an HTTP 503 `application/problem+json` response
+func (r SizeSectionResponse) GetApplicationproblemJSON503() *ApiProblem {
+	return r.ApplicationproblemJSON503
+}
+
+// GetApplicationproblemJSON504 returns the response for an HTTP 504 `application/problem+json` response
+func (r SizeSectionResponse) GetApplicationproblemJSON504() *ApiProblem {
+	return r.ApplicationproblemJSON504
+}
+
+// GetBody returns the raw response body bytes
+func (r SizeSectionResponse) GetBody() []byte {
+	return r.Body
+}
+
+// Status returns HTTPResponse.Status
+func (r SizeSectionResponse) Status() string {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.Status
+	}
+	return http.StatusText(0)
+}
+
+// StatusCode returns HTTPResponse.StatusCode
+func (r SizeSectionResponse) StatusCode() int {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.StatusCode
+	}
+	return 0
+}
+
+// ContentType is a convenience method to retrieve the Content-Type value from the HTTP response headers
+func (r SizeSectionResponse) ContentType() string {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.Header.Get("Content-Type")
+	}
+	return ""
+}
+
 type SizeStageResponse struct {
 	Body         []byte
 	HTTPResponse *http.Response
@@ -4116,6 +6707,36 @@ func (c *ClientWithResponses) GasPropertiesWithResponse(ctx context.Context, bod
 	return ParseGasPropertiesResponse(rsp)
 }
 
+// SizeSectionWithBodyWithResponse Size a multi-stage section with intercooling
+//
+// Turns a duty too big for one impeller into a section: the stage count (given, or the least for which every stage stays inside its levels: tip speed, stage pressure ratio and head, discharge temperature, flow-coefficient band), the split (equal polytropic head), coolers between stages (outlet temperature or coolant + approach, pressure drop, condensate removed by a flash at the outlet), every stage's full answer, the section totals (mechanical losses once per shaft), warnings and the machine as built for /v1/machine/rate, /map and /check. "geared" gives each stage its own speed; "inline" one shaft speed. Results are preliminary estimates; see the cautions field.
+//
+// Takes any type of body and a specified content type, and returns a wrapper object for the known response body format(s).
+//
+// Corresponds with POST /v1/section/size (the `SizeSection` operationId).
+func (c *ClientWithResponses) SizeSectionWithBodyWithResponse(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*SizeSectionResponse, error) {
+	rsp, err := c.SizeSectionWithBody(ctx, contentType, body, reqEditors...)
+	if err != nil {
+		return nil, err
+	}
+	return ParseSizeSectionResponse(rsp)
+}
+
+// SizeSectionWithResponse Size a multi-stage section with intercooling
+//
+// Turns a duty too big for one impeller into a section: the stage count (given, or the least for which every stage stays inside its levels: tip speed, stage pressure ratio and head, discharge temperature, flow-coefficient band), the split (equal polytropic head), coolers between stages (outlet temperature or coolant + approach, pressure drop, condensate removed by a flash at the outlet), every stage's full answer, the section totals (mechanical losses once per shaft), warnings and the machine as built for /v1/machine/rate, /map and /check. "geared" gives each stage its own speed; "inline" one shaft speed. Results are preliminary estimates; see the cautions field.
+//
+// Takes a body of the `application/json` content type, and returns a wrapper object for the known response body format(s).
+//
+// Corresponds with POST /v1/section/size (the `SizeSection` operationId).
+func (c *ClientWithResponses) SizeSectionWithResponse(ctx context.Context, body SizeSectionJSONRequestBody, reqEditors ...RequestEditorFn) (*SizeSectionResponse, error) {
+	rsp, err := c.SizeSection(ctx, body, reqEditors...)
+	if err != nil {
+		return nil, err
+	}
+	return ParseSizeSectionResponse(rsp)
+}
+
 // SizeStageWithBodyWithResponse Size one centrifugal stage for a gas duty
 //
 // Turns a gas duty (gas, suction state, discharge pressure or pressure ratio, flow, speed, efficiency) and impeller choices (blade exit angle, slip factor, power input factor, inlet) into the tip speed and diameters, inlet and exit widths, heads, discharge temperature, gas and shaft power, driver rating, every limit check with its margin, warnings and provenance. Physical inputs are SI numbers or strings with a unit ("35 degC", "14.7 psia"). Results are preliminary estimates; see the cautions field.
@@ -4320,6 +6941,81 @@ func ParseGasPropertiesResponse(rsp *http.Response) (*GasPropertiesResponse, err
 	switch {
 	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 200:
 		var dest ApiPropertiesResponse
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.JSON200 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 400:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON400 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 401:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON401 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 413:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON413 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 422:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON422 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 500:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON500 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 503:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON503 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 504:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON504 = &dest
+
+	}
+
+	return response, nil
+}
+
+// ParseSizeSectionResponse parses an HTTP response from a SizeSectionWithResponse call
+func ParseSizeSectionResponse(rsp *http.Response) (*SizeSectionResponse, error) {
+	bodyBytes, err := io.ReadAll(rsp.Body)
+	defer func() { _ = rsp.Body.Close() }()
+	if err != nil {
+		return nil, err
+	}
+
+	response := &SizeSectionResponse{
+		Body:         bodyBytes,
+		HTTPResponse: rsp,
+	}
+
+	switch {
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 200:
+		var dest ApiSectionResponse
 		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
 			return nil, err
 		}

@@ -374,3 +374,14 @@ func (m Real) GasStateFromPS(p physics.Pascal, s physics.JoulePerKgK) (State, er
 func (m Real) DewTemperature(p physics.Pascal) (physics.Kelvin, error) {
 	return m.eos.DewTemperature(m.x, p)
 }
+
+// Flash splits the gas at (t, p) into an equilibrium vapour and liquid
+// with the model's cubic equation (cubic.Mixture.Flash: Michelsen's
+// stability test, then Rachford-Rice with successive substitution on the
+// fugacities). The phase compositions are in the order of Composition.
+func (m Real) Flash(t physics.Kelvin, p physics.Pascal) (cubic.Flash, error) {
+	if err := checkTP(t, p); err != nil {
+		return cubic.Flash{}, err
+	}
+	return m.eos.Flash(m.x, t, p)
+}
