@@ -581,7 +581,7 @@ func (s *Service) sizeStages(ctx context.Context, d SectionDuty, ic Intercooling
 		delete(sd.LimitOverrides, "driver-margin")
 		st, err := s.SizeStage(ctx, sd)
 		if err != nil {
-			return res, stageErr(err, k+1)
+			return res, sectionStageErr(err, k+1)
 		}
 		res.Stages = append(res.Stages, st)
 		res.stageGas = append(res.stageGas, sd.Gas)
@@ -605,9 +605,9 @@ func (s *Service) sizeStages(ctx context.Context, d SectionDuty, ic Intercooling
 	return res, nil
 }
 
-// stageErr keeps an error's field (it is the section duty's field too)
+// sectionStageErr keeps an error's field (it is the section duty's field too)
 // and says which stage it came from.
-func stageErr(err error, k int) error {
+func sectionStageErr(err error, k int) error {
 	var ie *InputError
 	if errors.As(err, &ie) {
 		cp := *ie
