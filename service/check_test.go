@@ -168,3 +168,66 @@ func TestCheckDefaultsAndBadInput(t *testing.T) {
 	assert.Equal(t, "duty.suction.temperature", ie.Field)
 	assert.False(t, ie.Shape)
 }
+
+// kestrelAirSection sizes a two-stage, intercooled plant-air section of the
+// invented Kestrel Ridge plant (constant-property air, 1 bar, 300 K to
+// 3 bar, 4 kg/s, in-line, cooled to 305 K with a 0.1 bar drop). Invented
+// data: the demo, not a check value.
+func kestrelAirSection(t *testing.T) (service.Machine, service.CheckDuty) {
+	t.Helper()
+	n := 2
+	out, drop := 305.0, 0.1e5
+	res, err := service.New().SizeSection(context.Background(), service.SectionDuty{
+		StageDuty: service.StageDuty{Gas: textbookAir(), SuctionPressure: 1e5, SuctionTemperature: 300, DischargePressure: f(3e5), MassFlow: f(4)},
+		StageCount: &n, Arrangement: "inline",
+		Intercooling: &service.Intercooling{OutletTemperature: &out, PressureDrop: drop}})
+	require.NoError(t, err)
+	require.Len(t, res.Machine.Stages, 2)
+	return res.Machine, service.CheckDuty{Gas: textbookAir(), SuctionPressure: 1e5, SuctionTemperature: 300, MassFlow: f(4),
+		DischargePressure: float64(res.Discharge.Pressure)}
+}
+
+// A multi-stage machine at its own duty fits with every margin unchanged;
+// with much more flow one stage chokes first and is named (in a stack the
+// later stages see the flow squeezed by less than the first's pressure
+// rise as the speed climbs, so which one depends on the machine: the
+// reason names the stage the rating found).
+func TestCheckMultiStage(t *testing.T) {
+	m, d := kestrelAirSection(t)
+	res := check(t, m, d)
+	assert.Equal(t, service.CheckFits, res.Verdict, "%+v", res.Reasons)
+	require.Len(t, res.OperatingPoint.Stages, 2)
+	for _, mg := range res.Margins {
+		assert.InDelta(t, mg.Before, mg.After, 1e-6*math.Max(1, math.Abs(mg.Before)), mg.Code)
+	}
+	stages := map[int]bool{}
+	for _, mg := range res.Margins {
+		stages[mg.Stage] = true
+	}
+	assert.True(t, stages[1] && stages[2], "limit rules of both stages in the margins")
+
+	var choked *service.CheckResult
+	for _, scale := range []float64{1.3, 1.6, 2, 2.5, 3} {
+		r := check(t, m, withMass(d, 4*scale))
+		for _, rs := range r.Reasons {
+			if rs.Code == service.ReasonChoke {
+				choked = &r
+			}
+		}
+		if choked != nil {
+			break
+		}
+	}
+	require.NotNil(t, choked, "some flow up to 3 × design chokes the machine")
+	st := choked.OperatingPoint.ChokeStage
+	t.Logf("choke first at stage %d: %s", st, choked.Reasons[0].Message)
+	assert.True(t, st == 1 || st == 2, "choke stage %d", st)
+	found := false
+	for _, rs := range choked.Reasons {
+		if rs.Code == service.ReasonChoke {
+			found = true
+			assert.Contains(t, rs.Message, "stage "+string(rune('0'+st)))
+		}
+	}
+	assert.True(t, found)
+}
