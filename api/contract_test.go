@@ -368,6 +368,7 @@ func TestContractSeesEveryRoute(t *testing.T) {
 		"GET /healthz", "GET /readyz", "GET /version", "GET /metrics", "POST /v1/stage/size", "POST /v1/stage/size/batch",
 		"POST /v1/gas/properties", "GET /v1/gas/components",
 		"POST /v1/section/size",
+		"POST /v1/machine/check", "POST /v1/machine/check/batch",
 	}, ops)
 	err := exchange(k, fakeServer(200, "text/plain", "ok"), http.MethodGet, "/healthz", "")
 	require.ErrorContains(t, err, "response 200")

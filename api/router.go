@@ -18,6 +18,7 @@ type Services interface {
 	StageSizer
 	SectionSizer
 	GasPropertyService
+	MachineChecker
 }
 
 // Options configure the router. The zero value of every field but Spec
@@ -130,6 +131,9 @@ func NewRouter(svc Services, opts Options) (*gin.Engine, error) {
 	gh := gasHandler{svc: svc, decoder: dec, log: log}
 	v1.POST("/gas/properties", gh.properties)
 	v1.GET("/gas/components", gh.components)
+	ch := checkHandler{svc: svc, decoder: dec, log: log}
+	v1.POST("/machine/check", ch.check)
+	v1.POST("/machine/check/batch", ch.checkBatch)
 	v1.POST("/section/size", sectionHandler{svc: svc, decoder: dec, log: log}.size)
 	return r, nil
 }
