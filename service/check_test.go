@@ -178,7 +178,7 @@ func kestrelAirSection(t *testing.T) (service.Machine, service.CheckDuty) {
 	n := 2
 	out, drop := 305.0, 0.1e5
 	res, err := service.New().SizeSection(context.Background(), service.SectionDuty{
-		StageDuty: service.StageDuty{Gas: textbookAir(), SuctionPressure: 1e5, SuctionTemperature: 300, DischargePressure: f(3e5), MassFlow: f(4)},
+		StageDuty:  service.StageDuty{Gas: textbookAir(), SuctionPressure: 1e5, SuctionTemperature: 300, DischargePressure: f(3e5), MassFlow: f(4)},
 		StageCount: &n, Arrangement: "inline",
 		Intercooling: &service.Intercooling{OutletTemperature: &out, PressureDrop: drop}})
 	require.NoError(t, err)
