@@ -2,6 +2,7 @@ package api_test
 
 import (
 	"encoding/json"
+	"math"
 	"net/http"
 	"os"
 	"path/filepath"
@@ -194,4 +195,52 @@ func TestCheckBatch(t *testing.T) {
 	assert.Contains(t, w.Body.String(), `"/checks/1/`)
 	w = do(h, http.MethodPost, "/v1/machine/check/batch", `{"checks": []}`)
 	require.Equal(t, http.StatusBadRequest, w.Code)
+}
+
+// FuzzPostCheck drives /v1/machine/check with the plant-air section of the
+// demo and arbitrary numbers for the duty (flow, suction state, discharge
+// pressure) and the machine's frame (surge control margin, speed range,
+// driver rating): never a 5xx, always JSON without NaN or Inf, a
+// problem+json on every error, the contract on every exchange.
+//
+//	go test ./api -run '^$' -fuzz '^FuzzPostCheck$' -fuzztime 60s
+func FuzzPostCheck(f *testing.F) {
+	raw, err := os.ReadFile(filepath.Join(checksDir, "kestrel-air-section-own-duty.in.json"))
+	if err != nil {
+		f.Fatal(err)
+	}
+	var req map[string]any
+	if err := json.Unmarshal(raw, &req); err != nil {
+		f.Fatal(err)
+	}
+	f.Add(4.0, 1e5, 300.0, 3e5, 0.1, 10000.0, 16000.0, 8e5)
+	f.Add(10.0, 1e5, 300.0, 3e5, 0.1, 10000.0, 16000.0, 8e5)
+	f.Add(1.0, 1e5, 300.0, 3e5, 0.1, 10000.0, 16000.0, 8e5)
+	f.Add(4.0, 1.2e5, 250.0, 1.5e5, 0.0, 14000.0, 14001.0, 1.0)
+	f.Add(4.0, 1e5, 300.0, 3e7, 0.5, 1.0, 1e9, 1e12)
+	f.Add(-1.0, 0.0, -5.0, math.NaN(), -1.0, 0.0, -1.0, 0.0)
+	h := plainRouter(f)
+	k := servedContract(f, h)
+	f.Fuzz(func(t *testing.T, mass, p1, t1, p2, margin, nmin, nmax, rating float64) {
+		num := func(v float64) any {
+			if math.IsNaN(v) || math.IsInf(v, 0) {
+				return "nan" // a string that is no quantity: a 400
+			}
+			return v
+		}
+		m := req["machine"].(map[string]any)
+		m["surge_control"] = map[string]any{"margin": num(margin)}
+		m["speed_range"] = map[string]any{"minimum": num(nmin), "maximum_continuous": num(nmax)}
+		m["driver"] = map[string]any{"rating": num(rating)}
+		d := req["duty"].(map[string]any)
+		d["flow"] = map[string]any{"mass": num(mass)}
+		d["suction"] = map[string]any{"pressure": num(p1), "temperature": num(t1)}
+		d["discharge_pressure"] = num(p2)
+		body, err := json.Marshal(req)
+		if err != nil {
+			t.Skip()
+		}
+		w := fuzzExchange(t, h, k, http.MethodPost, "/v1/machine/check", body)
+		checkAnswer(t, w.Code, w.Header().Get("Content-Type"), w.Body.Bytes(), stageErrors)
+	})
 }
