@@ -244,3 +244,32 @@ func FuzzPostCheck(f *testing.F) {
 		checkAnswer(t, w.Code, w.Header().Get("Content-Type"), w.Body.Bytes(), stageErrors)
 	})
 }
+
+// BenchmarkPostCheck: one POST /v1/machine/check of K-4101 (one stage,
+// Peng-Robinson) at 5 % more flow, through the router.
+func BenchmarkPostCheck(b *testing.B) {
+	body, err := os.ReadFile(filepath.Join(checksDir, "kestrel-k4101-more-flow.in.json"))
+	if err != nil {
+		b.Fatal(err)
+	}
+	benchRequest(b, http.MethodPost, "/v1/machine/check", body, http.StatusOK)
+}
+
+// BenchmarkPostCheckBatch200: one POST /v1/machine/check/batch of 200
+// K-4101 checks (its demo duties in turn: own, more, low, lighter gas,
+// cold suction, far above), parallel over the cores.
+func BenchmarkPostCheckBatch200(b *testing.B) {
+	var items []string
+	for _, n := range []string{"own-duty", "more-flow", "low-flow", "lighter-gas", "cold-suction", "far-above"} {
+		body, err := os.ReadFile(filepath.Join(checksDir, "kestrel-k4101-"+n+".in.json"))
+		if err != nil {
+			b.Fatal(err)
+		}
+		items = append(items, string(body))
+	}
+	var all []string
+	for i := range 200 {
+		all = append(all, items[i%len(items)])
+	}
+	benchRequest(b, http.MethodPost, "/v1/machine/check/batch", []byte(`{"checks": [`+strings.Join(all, ",")+`]}`), http.StatusOK)
+}
