@@ -273,3 +273,33 @@ func BenchmarkPostCheckBatch200(b *testing.B) {
 	}
 	benchRequest(b, http.MethodPost, "/v1/machine/check/batch", []byte(`{"checks": [`+strings.Join(all, ",")+`]}`), http.StatusOK)
 }
+
+// TestCheckDemoMachineFromStageSize: the asset system's stored K-4101 is
+// the machine /v1/stage/size answers for kestrel-k4101.size.json (sized
+// once; the stored copy adds only its tag name).
+func TestCheckDemoMachineFromStageSize(t *testing.T) {
+	h := newRouter(t)
+	size, err := os.ReadFile(filepath.Join(checksDir, "kestrel-k4101.size.json"))
+	require.NoError(t, err)
+	w := do(h, http.MethodPost, "/v1/stage/size", string(size))
+	require.Equal(t, http.StatusOK, w.Code, w.Body.String())
+	var sized struct {
+		Machine map[string]any `json:"machine"`
+	}
+	require.NoError(t, json.Unmarshal(w.Body.Bytes(), &sized))
+	require.NotNil(t, sized.Machine)
+	in, err := os.ReadFile(filepath.Join(checksDir, "kestrel-k4101-own-duty.in.json"))
+	require.NoError(t, err)
+	var stored struct {
+		Machine map[string]any `json:"machine"`
+	}
+	require.NoError(t, json.Unmarshal(in, &stored))
+	assert.Equal(t, "K-4101", stored.Machine["name"])
+	delete(stored.Machine, "name")
+	delete(sized.Machine, "name")
+	want, err := json.Marshal(sized.Machine)
+	require.NoError(t, err)
+	got, err := json.Marshal(stored.Machine)
+	require.NoError(t, err)
+	assertJSONClose(t, want, got)
+}

@@ -286,6 +286,7 @@ func responseOf(res service.StageResult) (StageResponse, error) {
 			Value: w.Value, Limit: w.Limit, Margin: w.Margin, Unit: w.Unit, Basis: w.Basis})
 	}
 	out.Provenance = provenanceOut(res.Provenance)
+	out.Machine = machineSpecOf(res.Machine)
 	if err := allFinite(out); err != nil {
 		return StageResponse{}, err
 	}

@@ -64,6 +64,12 @@ type MachineStageSpec struct {
 	Construction string `json:"construction,omitempty" binding:"omitempty,oneof=closed-steel open-steel open-aluminium open-titanium" enums:"closed-steel,open-steel,open-aluminium,open-titanium" example:"closed-steel"`
 	// Design is the point the stage was sized for.
 	Design DesignPointSpec `json:"design" binding:"required" validate:"required"`
+	// PolytropicMethod is the method of the design polytropic efficiency and of
+	// the rating's compression path: "stepwise" (default) or "schultz" (ASME PTC 10).
+	PolytropicMethod string `json:"polytropic_method,omitempty" binding:"omitempty,oneof=stepwise schultz" enums:"stepwise,schultz" example:"stepwise"`
+	// ImpellerLossShare is the fraction of the stage loss arising in the
+	// impeller (sets the impeller exit density); default 0.5, as the sizing.
+	ImpellerLossShare *float64 `json:"impeller_loss_share,omitempty" format:"double" minimum:"0" maximum:"1" example:"0.5"`
 }
 
 // MachineInletSpec is the inlet as built: an "axial-eye" with its eye tip

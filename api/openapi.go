@@ -31,6 +31,7 @@ func openAPI3(spec []byte) ([]byte, error) {
 		}
 	}
 	problemContent(doc3)
+	textContent(doc3)
 	if err := doc3.Validate(context.Background()); err != nil {
 		return nil, fmt.Errorf("api: openapi 3 document invalid: %w", err)
 	}
@@ -133,6 +134,32 @@ func problemContent(doc *openapi3.T) {
 				if mt, ok := ref.Value.Content["application/json"]; ok {
 					delete(ref.Value.Content, "application/json")
 					ref.Value.Content["application/problem+json"] = mt
+				}
+			}
+		}
+	}
+}
+
+// textContent gives the non-JSON answers of an operation (a chart as
+// image/svg+xml, a table as text/csv) a string schema: Swagger 2.0 has one
+// schema for every media type an operation produces.
+func textContent(doc *openapi3.T) {
+	if doc.Paths == nil {
+		return
+	}
+	for _, item := range doc.Paths.Map() {
+		for _, op := range item.Operations() {
+			if op.Responses == nil {
+				continue
+			}
+			for _, r := range op.Responses.Map() {
+				if r.Value == nil {
+					continue
+				}
+				for mt, c := range r.Value.Content {
+					if mt == "image/svg+xml" || mt == "text/csv" {
+						c.Schema = openapi3.NewStringSchema().NewRef()
+					}
 				}
 			}
 		}

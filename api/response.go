@@ -41,6 +41,9 @@ type StageResponse struct {
 	// the duty needs and the hazards of its gas; they defer to the
 	// manufacturer, the standards, local codes and licensed engineering practice.
 	Cautions []string `json:"cautions" validate:"required"`
+	// Machine is the stage as built, in exactly the shape /v1/machine/rate
+	// and /v1/machine/map take back (numbers in SI).
+	Machine MachineSpec `json:"machine" validate:"required"`
 }
 
 // SpeedChoiceOut says how the speed was found.

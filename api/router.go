@@ -18,6 +18,7 @@ type Services interface {
 	StageSizer
 	SectionSizer
 	GasPropertyService
+	MachineService
 	MachineChecker
 }
 
@@ -124,7 +125,8 @@ func NewRouter(svc Services, opts Options) (*gin.Engine, error) {
 	if opts.ComputeTimeout > 0 {
 		v1.Use(computeDeadline(opts.ComputeTimeout))
 	}
-	dec := newRequestDecoder(StageRequest{}, BatchRequest{}, PropertiesRequest{}, SectionRequest{})
+	dec := newRequestDecoder(StageRequest{}, BatchRequest{}, PropertiesRequest{}, SectionRequest{}, RateRequest{}, RateBatchRequest{}, MapRequest{},
+		MachineCheckRequest{}, MachineCheckBatchRequest{})
 	st := stageHandler{svc: svc, decoder: dec, log: log}
 	v1.POST("/stage/size", st.size)
 	v1.POST("/stage/size/batch", st.sizeBatch)
@@ -135,6 +137,10 @@ func NewRouter(svc Services, opts Options) (*gin.Engine, error) {
 	v1.POST("/machine/check", ch.check)
 	v1.POST("/machine/check/batch", ch.checkBatch)
 	v1.POST("/section/size", sectionHandler{svc: svc, decoder: dec, log: log}.size)
+	mh := machineHandler{svc: svc, decoder: dec, log: log}
+	v1.POST("/machine/rate", mh.rate)
+	v1.POST("/machine/rate/batch", mh.rateBatch)
+	v1.POST("/machine/map", mh.mapChart)
 	return r, nil
 }
 

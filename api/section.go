@@ -173,6 +173,12 @@ func sectionMachineSpec(m service.Machine) MachineSpec {
 	if m.Driver != nil {
 		out.Driver = &MachineDriverSpec{Rating: qp(m.Driver.Rating)}
 	}
+	if m.SpeedRange != nil {
+		out.SpeedRange = &SpeedRangeSpec{Minimum: q(m.SpeedRange.Minimum), MaximumContinuous: q(m.SpeedRange.MaximumContinuous)}
+	}
+	if m.SurgeControl != nil {
+		out.SurgeControl = &SurgeControlSpec{Margin: m.SurgeControl.Margin}
+	}
 	if len(m.LimitOverrides) > 0 {
 		out.LimitOverrides = make(map[string]LevelOverrideSpec, len(m.LimitOverrides))
 		for k, o := range m.LimitOverrides {

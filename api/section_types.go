@@ -76,7 +76,8 @@ type SectionResponse struct {
 	// Arrangement is "geared" or "inline".
 	Arrangement string `json:"arrangement" enums:"geared,inline" example:"geared" validate:"required"`
 	// Stages are the full stage answers in flow order, each with its own
-	// suction state, mass flow and speed.
+	// suction state, mass flow and speed (their provenance.input_hash is
+	// the section duty's).
 	Stages []StageResponse `json:"stages" validate:"required"`
 	// Coolers are the intercoolers.
 	Coolers []SectionCoolerOut `json:"coolers" validate:"required"`

@@ -48,6 +48,13 @@ const dewApproach = 5.0
 // "approach", "coolant_temperature", "pressure_drop"); callers prefix them
 // with prefixField.
 func (s *Service) cool(c MachineCooler, g GasInput, m gas.Model, in gas.State, mdot float64) (cooled, error) {
+	return s.coolWith(c, g, m, in, mdot, true)
+}
+
+// coolWith is cool; warn false leaves out the dew-point warnings of the gas
+// leaving (a dew-point search costs some 200 µs per cooler), for loops
+// that only need the state (the section's head split, stacked ratings).
+func (s *Service) coolWith(c MachineCooler, g GasInput, m gas.Model, in gas.State, mdot float64, warn bool) (cooled, error) {
 	t2, tField, err := coolerOutletTemperature(c)
 	if err != nil {
 		return cooled{}, err
@@ -177,7 +184,7 @@ func (s *Service) cool(c MachineCooler, g GasInput, m gas.Model, in gas.State, m
 	}
 	out.State = st
 	var dryModel gas.Model
-	if isCubic(m) {
+	if isCubic(m) && warn {
 		dryModel = out.Model
 		if iw >= 0 && left[iw] > 0 {
 			for i := range dryLeft {
@@ -192,7 +199,9 @@ func (s *Service) cool(c MachineCooler, g GasInput, m gas.Model, in gas.State, m
 			}
 		}
 	}
-	out.Warnings = append(out.Warnings, leavingDewWarnings(out.Model, dryModel, st, flashErr)...)
+	if warn || flashErr != nil {
+		out.Warnings = append(out.Warnings, leavingDewWarnings(out.Model, dryModel, st, flashErr)...)
+	}
 	if !physics.Finite(out.Duty, out.MassFlow, out.Condensate) {
 		return cooled{}, fieldErr(tField, reason(tField, "the cooler balance gave no finite result at this outlet state", t2))
 	}

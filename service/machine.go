@@ -58,6 +58,13 @@ type MachineStage struct {
 	// pressure-ratio levels ("closed-steel", ...).
 	Construction string      `json:"construction"`
 	Design       DesignPoint `json:"design"`
+	// PolytropicMethod is the method of the design polytropic efficiency
+	// and of the rating's compression path ("stepwise" or "schultz");
+	// empty: stepwise.
+	PolytropicMethod string `json:"polytropic_method,omitempty"`
+	// ImpellerLossShare is the share of the stage loss arising in the
+	// impeller (for the exit density); nil: 0.5 as in the sizing.
+	ImpellerLossShare *float64 `json:"impeller_loss_share,omitempty"`
 }
 
 // MachineInlet is the inlet as built: an axial eye (EyeTipDiameter,

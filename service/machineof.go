@@ -22,6 +22,13 @@ func machineOf(d StageDuty, res *StageResult) Machine {
 		Construction:     d.Impeller.Construction,
 		Diffuser:         Diffuser{Type: d.Diffuser},
 	}
+	if d.PolytropicMethod == "schultz" {
+		st.PolytropicMethod = "schultz"
+	}
+	if d.ImpellerLossShare != nil {
+		v := *d.ImpellerLossShare
+		st.ImpellerLossShare = &v
+	}
 	if st.Construction == "" {
 		st.Construction = "closed-steel"
 	}

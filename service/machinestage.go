@@ -30,6 +30,10 @@ const (
 	// diffuser-inlet angle above the design angle, deg (a stage is not
 	// designed to run at surge; common practice, no source).
 	surgeAngleClearance = 5.0
+	// defaultDiffuserChokeFraction is the design flow over the vaned
+	// diffuser throat's sonic flow when the throat area is not given
+	// (common practice, no source).
+	defaultDiffuserChokeFraction = 0.85
 	// minSpeedFraction and maxSpeedFraction bound any speed the machine
 	// endpoints evaluate, as a fraction of the design speed.
 	minSpeedFraction = 0.05
@@ -214,6 +218,16 @@ func (s *Service) prepareStage(m Machine, i int, prov *Provenance) (preparedStag
 	if st.PowerInputFactor == 0 {
 		st.PowerInputFactor = DefaultPowerInputFactor
 	}
+	switch ms.PolytropicMethod {
+	case "", "stepwise":
+	case "schultz":
+		st.Method = path.Schultz
+	default:
+		return ps, shapeErr(f+".polytropic_method", fmt.Errorf("unknown polytropic method %q: use stepwise or schultz", ms.PolytropicMethod))
+	}
+	if ms.ImpellerLossShare != nil {
+		st.ImpellerLossShare = *ms.ImpellerLossShare
+	}
 	// Inlet.
 	in := ms.Inlet
 	switch stage.InletKind(in.Type) {
@@ -317,7 +331,7 @@ func (s *Service) prepareStage(m Machine, i int, prov *Provenance) (preparedStag
 	if err != nil {
 		return ps, stageErr(f, err)
 	}
-	chokeMass, _ := line.InducerChoke()
+	chokeMass, _ := line.MaxFlow()
 	st.Design.ChokeFlowCoefficient = line.FlowCoefficient(chokeMass)
 	if !(ps.designMass < chokeMass) {
 		return ps, fieldErr(f+".design.volume_flow", reason("volume_flow", fmt.Sprintf(
@@ -344,10 +358,13 @@ func (s *Service) prepareStage(m Machine, i int, prov *Provenance) (preparedStag
 				return ps, fieldErr(f+".diffuser.throat_area", reason("throat_area", "the diffuser throat area must be a positive number of m2", st.DiffuserThroatArea))
 			}
 		} else {
-			open := math.Pi * ms.TipDiameter * ms.ExitWidth * (1 - st.ExitBlockage)
-			st.DiffuserThroatArea = open * math.Cos(dp.ExitFlowAngle*math.Pi/180)
+			flux, _, err := offdesign.SonicFlux(model, dp.ExitTotal)
+			if err != nil {
+				return ps, fieldErr(f+".diffuser", err)
+			}
+			st.DiffuserThroatArea = ps.designMass / (defaultDiffuserChokeFraction * flux)
 			prov.Defaults = append(prov.Defaults, Default{Field: f + ".diffuser.throat_area", Value: strconv.FormatFloat(st.DiffuserThroatArea, 'g', 5, 64) + " m2",
-				Note: "vaned diffuser throat taken as the impeller's open exit area normal to the design flow direction, (1 - B) pi D2 b2 cos(alpha2) (common practice, no source)"})
+				Note: "vaned diffuser throat not given: taken to pass the design flow at 85 % of its sonic flow from the design impeller exit state, a choke margin of 15 % at design (common practice, no source)"})
 		}
 	}
 	ps.st = st

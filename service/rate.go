@@ -315,7 +315,7 @@ func (s *Service) stack(ctx context.Context, pm *preparedMachine, op operating, 
 func (s *Service) chokeProblem(line *offdesign.Line, in gas.State, mdot float64, k, n int) error {
 	mc, passage, err := line.Choke()
 	if err != nil {
-		mc, passage = line.InducerChoke()
+		mc, passage = line.MaxFlow()
 	}
 	return s.chokeProblemAt(mc, passage, in, mdot, k, n)
 }
@@ -327,26 +327,40 @@ func (s *Service) chokeProblemAt(mc float64, passage string, in gas.State, mdot 
 	}
 	q, qc := mdot/float64(in.Density), mc/float64(in.Density)
 	return fieldErr("flow", reason("flow", fmt.Sprintf(
-		"the flow of %.5g m3/s (%.5g kg/s) at %s's suction is past its estimated choke flow of %.5g m3/s (%.5g kg/s; sonic flow in the %s) at this speed: lower the flow or raise the speed (the choke flow is an estimate)",
+		"the flow of %.5g m3/s (%.5g kg/s) at %s's suction is past its estimated choke flow of %.5g m3/s (%.5g kg/s; %s) at this speed: lower the flow or raise the speed (the choke flow is an estimate)",
 		q, mdot, who, qc, mc, passageText(passage)), q))
 }
 
 func passageText(p string) string {
 	switch p {
 	case offdesign.ChokeEye:
-		return "impeller eye"
+		return "sonic flow in the impeller eye"
 	case offdesign.ChokeDiffuserThroat:
-		return "vaned diffuser throat"
+		return "sonic flow in the vaned diffuser throat"
+	case offdesign.ChokeZeroWork:
+		return "the impeller's work and head fall to zero there, before any passage is sonic"
 	}
-	return "inducer throat"
+	return "sonic flow in the inducer throat"
 }
 
-// coolBetween takes the gas through the cooler after stage k (0-based).
-// Intercoolers need the cooler model of the section work; until it is
-// there a machine with an intercooler is refused.
+// coolBetween takes the gas through the cooler after stage k (0-based)
+// with the section's cooler model (cool: outlet temperature, pressure
+// drop, condensate removed by a flash at the outlet).
 func (s *Service) coolBetween(c MachineCooler, g GasInput, m gas.Model, in gas.State, mdot float64, k int) (CoolerRating, gas.State, float64, GasInput, gas.Model, error) {
-	return CoolerRating{}, in, mdot, g, m, fieldErr("machine.coolers", reason("coolers",
-		"rating through intercoolers is not available yet in this build: rate each stage's section separately", float64(c.AfterStage)))
+	out, err := s.coolWith(c, g, m, in, mdot, false) // its warnings are not reported by a rating
+	if err != nil {
+		var ie *InputError
+		if errors.As(err, &ie) {
+			cp := *ie
+			cp.Field = "machine.coolers"
+			cp.Err = fmt.Errorf("the cooler after stage %d (%s): %w", c.AfterStage, ie.Field, ie.Err)
+			return CoolerRating{}, in, mdot, g, m, &cp
+		}
+		return CoolerRating{}, in, mdot, g, m, err
+	}
+	cr := CoolerRating{OutletPressure: float64(out.State.Pressure), OutletTemperature: float64(out.State.Temperature),
+		Condensate: out.Condensate, Duty: out.Duty}
+	return cr, out.State, out.MassFlow, out.Gas, out.Model, nil
 }
 
 // fillRating sums the stacked stages into the rating.

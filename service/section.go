@@ -91,8 +91,6 @@ type SectionResult struct {
 	Split      string
 	Provenance Provenance
 	Cautions   []string
-
-	stageGas []GasInput // the gas entering each stage
 }
 
 // SectionWarning is a warning of the section (Stage 0) or of one stage.
@@ -207,6 +205,12 @@ func (s *Service) SizeSection(ctx context.Context, d SectionDuty) (SectionResult
 			Source: "IAPWS R7-97 (2007) region 4; Rachford & Rice, J. Pet. Technol. 4(10) (1952); Michelsen & Mollerup, Thermodynamic Models (2007), ch. 10; Clausius-Clapeyron for the latent heat of water"})
 	}
 	res.Provenance.ModelVersion, res.Provenance.ServiceVersion, res.Provenance.InputHash = prov.ModelVersion, prov.ServiceVersion, prov.InputHash
+	// Each stage's duty holds computed pressures and temperatures, whose
+	// last bits differ between platforms: the stages carry the section
+	// duty's hash instead.
+	for i := range res.Stages {
+		res.Stages[i].Provenance.InputHash = prov.InputHash
+	}
 	res.Provenance.GasModel = prov.GasModel
 	res.Provenance.Methods = append(prov.Methods, res.Provenance.Methods...)
 	res.Provenance.Defaults = append(prov.Defaults, res.Provenance.Defaults...)
@@ -351,8 +355,9 @@ func (s *Service) designSection(ctx context.Context, d SectionDuty, b sectionBas
 	var res SectionResult
 	var plans []sectionPlan
 	var err error
+	hint := 0.0 // the head per stage of the previous pass
 	for pass := range splitPasses {
-		plans, err = s.splitEqualHead(ctx, b, ic, effs, n)
+		plans, hint, err = s.splitEqualHead(ctx, b, ic, effs, n, hint)
 		if err != nil {
 			return res, err
 		}
@@ -407,7 +412,7 @@ func (s *Service) designSection(ctx context.Context, d SectionDuty, b sectionBas
 // discharge after its cooler, and the last discharge the duty's: the
 // final pressure rises monotonically with h, so h is found by the
 // Illinois variant of regula falsi.
-func (s *Service) splitEqualHead(ctx context.Context, b sectionBase, ic Intercooling, effs []path.Efficiency, n int) ([]sectionPlan, error) {
+func (s *Service) splitEqualHead(ctx context.Context, b sectionBase, ic Intercooling, effs []path.Efficiency, n int, hint float64) ([]sectionPlan, float64, error) {
 	target := b.p2
 	march := func(h float64) ([]sectionPlan, float64, error) {
 		plans := make([]sectionPlan, 0, n)
@@ -416,27 +421,19 @@ func (s *Service) splitEqualHead(ctx context.Context, b sectionBase, ic Intercoo
 			if err := ctx.Err(); err != nil {
 				return nil, 0, err
 			}
-			p2, err := pressureForHead(m, st, h, effs[k-1], b.method)
+			p2, comp, err := pressureForHead(m, st, h, effs[k-1], b.method)
 			if err != nil {
 				return nil, 0, err
 			}
 			pl := sectionPlan{gas: g, model: m, suction: st, mdot: mdot, p2: p2}
 			if c := coolerAfter(ic, k, n); c != nil {
-				comp, err := path.Compression(m, st, physics.Pascal(p2), effs[k-1], b.method)
-				if err != nil {
-					return nil, 0, fieldErr("discharge_pressure", fmt.Errorf("stage %d: %w", k, err))
-				}
-				out, err := s.cool(*c, g, m, comp.Discharge, mdot)
+				out, err := s.coolWith(*c, g, m, comp.Discharge, mdot, false)
 				if err != nil {
 					return nil, 0, prefixField(err, "intercooling.")
 				}
 				pl.cooler, pl.cIn = &out, comp.Discharge
 				g, m, st, mdot = out.Gas, out.Model, out.State, out.MassFlow
 			} else {
-				comp, err := path.Compression(m, st, physics.Pascal(p2), effs[k-1], b.method)
-				if err != nil {
-					return nil, 0, fieldErr("discharge_pressure", fmt.Errorf("stage %d: %w", k, err))
-				}
 				st = comp.Discharge
 				if k == 1 {
 					g = b.explicit
@@ -447,20 +444,36 @@ func (s *Service) splitEqualHead(ctx context.Context, b sectionBase, ic Intercoo
 		return plans, float64(plans[n-1].p2), nil
 	}
 	// Bracket: the head of one path over the whole ratio split n ways is a
-	// first guess; cooling lowers the head needed, so it brackets from above
-	// after at most a few doublings.
-	whole, err := path.Compression(b.model, b.suction, physics.Pascal(target), b.eff, b.method)
-	if err != nil {
-		return nil, compressionError(err, "efficiency", StageDuty{DischargePressure: &target})
-	}
-	hLo, hHi := 0.0, float64(whole.PolytropicHead)/float64(n)
+	// first guess (or the previous pass's head, hint, within 1 %); cooling
+	// lowers the head needed, so it brackets from above after at most a few
+	// doublings.
+	hLo, hHi := 0.0, hint*1.01
 	fLo := math.Log(float64(b.suction.Pressure) / target)
 	var plans []sectionPlan
 	var fHi float64
-	for range 20 {
+	bracketed := false
+	if hint > 0 {
+		pl, p, err := march(hint * 0.99)
+		if err != nil {
+			return nil, 0, err
+		}
+		if f := math.Log(p / target); f < 0 {
+			hLo, fLo = hint*0.99, f
+		} else {
+			hHi, fHi, plans, bracketed = hint*0.99, f, pl, true
+		}
+	} else {
+		whole, err := path.Compression(b.model, b.suction, physics.Pascal(target), b.eff, b.method)
+		if err != nil {
+			return nil, 0, compressionError(err, "efficiency", StageDuty{DischargePressure: &target})
+		}
+		hHi = float64(whole.PolytropicHead) / float64(n)
+	}
+	for i := 0; i < 20 && !bracketed; i++ {
 		var p float64
+		var err error
 		if plans, p, err = march(hHi); err != nil {
-			return nil, err
+			return nil, 0, err
 		}
 		if fHi = math.Log(p / target); fHi >= 0 {
 			break
@@ -469,12 +482,12 @@ func (s *Service) splitEqualHead(ctx context.Context, b sectionBase, ic Intercoo
 		hHi *= 1.5
 	}
 	if fHi < 0 {
-		return nil, fieldErr("discharge_pressure", reason("discharge_pressure", "the section cannot reach the discharge pressure with these coolers (their pressure drops take more than the stages make)", target))
+		return nil, 0, fieldErr("discharge_pressure", reason("discharge_pressure", "the section cannot reach the discharge pressure with these coolers (their pressure drops take more than the stages make)", target))
 	}
 	side := 0
 	for range splitMaxIter {
 		if math.Abs(fHi) < splitTolerance {
-			return plans, nil
+			return plans, hHi, nil
 		}
 		h := hHi - fHi*(hHi-hLo)/(fHi-fLo)
 		if !(h > hLo && h < hHi) {
@@ -482,11 +495,11 @@ func (s *Service) splitEqualHead(ctx context.Context, b sectionBase, ic Intercoo
 		}
 		pl, p, err := march(h)
 		if err != nil {
-			return nil, err
+			return nil, 0, err
 		}
 		f := math.Log(p / target)
 		if math.Abs(f) < splitTolerance {
-			return pl, nil
+			return pl, h, nil
 		}
 		if f > 0 {
 			hHi, fHi, plans = h, f, pl
@@ -502,38 +515,40 @@ func (s *Service) splitEqualHead(ctx context.Context, b sectionBase, ic Intercoo
 			side = -1
 		}
 	}
-	return plans, nil // closest from above; the stage sizing uses its pressures as they are
+	return plans, hHi, nil // closest from above; the stage sizing uses its pressures as they are
 }
 
 // pressureForHead returns the discharge pressure at which a stage from
 // suction st makes polytropic head h: secant steps on ln(p2/p1) from the
 // isothermal estimate ln r = h/(p/ρ), which overestimates the ratio.
-func pressureForHead(m gas.Model, st gas.State, h float64, eff path.Efficiency, method path.Method) (float64, error) {
+func pressureForHead(m gas.Model, st gas.State, h float64, eff path.Efficiency, method path.Method) (float64, path.Result, error) {
 	p1 := float64(st.Pressure)
 	if h <= 0 {
-		return p1 * (1 + 1e-9), nil
+		h = 1e-9 * p1 / float64(st.Density)
 	}
 	rt := p1 / float64(st.Density)
+	var last path.Result
 	head := func(x float64) (float64, error) {
 		r, err := path.Compression(m, st, physics.Pascal(p1*math.Exp(x)), eff, method)
 		if err != nil {
 			return 0, fieldErr("discharge_pressure", fmt.Errorf("stage split: %w", err))
 		}
+		last = r
 		return float64(r.PolytropicHead) - h, nil
 	}
 	x0 := h / rt
 	x1 := 0.8 * x0
 	f0, err := head(x0)
 	if err != nil {
-		return 0, err
+		return 0, last, err
 	}
 	f1, err := head(x1)
 	if err != nil {
-		return 0, err
+		return 0, last, err
 	}
 	for range 40 {
 		if math.Abs(f1) < 1e-10*h || f1 == f0 {
-			return p1 * math.Exp(x1), nil
+			break
 		}
 		x2 := x1 - f1*(x1-x0)/(f1-f0)
 		if !(x2 > 0) {
@@ -542,10 +557,10 @@ func pressureForHead(m gas.Model, st gas.State, h float64, eff path.Efficiency, 
 		x0, f0 = x1, f1
 		x1 = x2
 		if f1, err = head(x1); err != nil {
-			return 0, err
+			return 0, last, err
 		}
 	}
-	return p1 * math.Exp(x1), nil
+	return p1 * math.Exp(x1), last, nil
 }
 
 // sizeStages sizes every planned stage with SizeStage; speed > 0 turns
@@ -584,8 +599,7 @@ func (s *Service) sizeStages(ctx context.Context, d SectionDuty, ic Intercooling
 			return res, sectionStageErr(err, k+1)
 		}
 		res.Stages = append(res.Stages, st)
-		res.stageGas = append(res.stageGas, sd.Gas)
-		if pl.cooler != nil {
+			if pl.cooler != nil {
 			// The cooler again from the stage's discharge as sized (the
 			// outlet depends only on its temperature and pressure; the duty
 			// on the inlet too).
@@ -710,9 +724,11 @@ func (s *Service) sectionTotals(d SectionDuty, arr string, ic Intercooling, res 
 	return nil
 }
 
-// sectionMachine describes the sized section as built.
+// sectionMachine describes the sized section as built: each stage as
+// SizeStage answers it (machineOf), the coolers, the first stage's speed
+// range, the section's driver and mechanical efficiency.
 func sectionMachine(d SectionDuty, arr string, ic Intercooling, res *SectionResult) Machine {
-	m := Machine{Arrangement: arr, LimitOverrides: d.LimitOverrides}
+	m := Machine{Arrangement: arr, LimitOverrides: d.LimitOverrides, SpeedRange: res.Stages[0].Machine.SpeedRange}
 	if len(res.Stages) == 1 {
 		m.Arrangement = "single"
 	}
@@ -720,61 +736,13 @@ func sectionMachine(d SectionDuty, arr string, ic Intercooling, res *SectionResu
 	m.MechanicalEfficiency = &eta
 	rating := res.Power.DriverRating
 	m.Driver = &MachineDriver{Rating: &rating}
-	for k, st := range res.Stages {
-		sd := d.StageDuty
-		gasIn := d.Gas
-		if k > 0 {
-			gasIn = res.stageGas[k]
-		}
-		m.Stages = append(m.Stages, sectionMachineStage(sd, st, gasIn))
+	for _, st := range res.Stages {
+		m.Stages = append(m.Stages, st.Machine.Stages[0])
 	}
 	for _, c := range res.Coolers {
-		mc := coolerAfter(ic, c.AfterStage, len(res.Stages))
-		m.Coolers = append(m.Coolers, *mc)
+		m.Coolers = append(m.Coolers, *coolerAfter(ic, c.AfterStage, len(res.Stages)))
 	}
 	return m
-}
-
-// sectionMachineStage is one sized stage as built.
-func sectionMachineStage(d StageDuty, st StageResult, g GasInput) MachineStage {
-	geo, v, c := st.Sizing.Geometry, st.Sizing.Velocities, st.Sizing.Coefficients
-	ms := MachineStage{TipDiameter: float64(geo.TipDiameter), ExitWidth: float64(geo.ExitWidth),
-		BladeExitAngle: st.Impeller.BladeExitAngle, ExitBlockage: st.ExitBlockage, PowerInputFactor: st.Impeller.PowerInputFactor,
-		Construction: d.Impeller.Construction, Diffuser: Diffuser{Type: d.Diffuser}}
-	if ms.Construction == "" {
-		ms.Construction = string(limits.DefaultBuild)
-	}
-	if ms.Diffuser.Type == "" {
-		ms.Diffuser.Type = "vaneless"
-	}
-	if st.BladeCount > 0 {
-		ms.BladeCount = st.BladeCount
-		ms.SlipModel = d.Impeller.SlipModel
-		if ms.SlipModel == "" {
-			ms.SlipModel = "wiesner"
-		}
-	} else {
-		sf := st.SlipFactor
-		ms.SlipFactor = &sf
-	}
-	ms.Inlet.Type = string(geo.Inlet)
-	dia, width, hub := float64(geo.InletDiameter), float64(geo.InletWidth), float64(geo.EyeHubDiameter)
-	if geo.Inlet == "axial-eye" {
-		ms.Inlet.EyeTipDiameter, ms.Inlet.EyeHubDiameter = &dia, &hub
-	} else {
-		ms.Inlet.Diameter, ms.Inlet.Width = &dia, &width
-	}
-	if st.PrewhirlAngle != 0 {
-		pa := st.PrewhirlAngle
-		ms.Inlet.PrewhirlAngle = &pa
-	}
-	p := st.Path
-	ms.Design = DesignPoint{Speed: st.Speed, VolumeFlow: st.SuctionVolumeFlow, MassFlow: st.MassFlow,
-		FlowCoefficient: c.FlowCoefficient, WorkCoefficient: c.WorkCoefficient, PolytropicEfficiency: p.PolytropicEfficiency,
-		TipMach: v.MachineMach, PolytropicHead: float64(p.PolytropicHead),
-		SuctionPressure: float64(p.Suction.Pressure), SuctionTemperature: float64(p.Suction.Temperature),
-		DischargePressure: float64(p.Discharge.Pressure), Gas: g}
-	return ms
 }
 
 // sectionCautions are the first stage's cautions with the section's own.

@@ -349,6 +349,24 @@ func (e ApiMachineStageSpecConstruction) Valid() bool {
 	}
 }
 
+// Defines values for ApiMachineStageSpecPolytropicMethod.
+const (
+	ApiMachineStageSpecPolytropicMethodSchultz  ApiMachineStageSpecPolytropicMethod = "schultz"
+	ApiMachineStageSpecPolytropicMethodStepwise ApiMachineStageSpecPolytropicMethod = "stepwise"
+)
+
+// Valid indicates whether the value is a known member of the ApiMachineStageSpecPolytropicMethod enum.
+func (e ApiMachineStageSpecPolytropicMethod) Valid() bool {
+	switch e {
+	case ApiMachineStageSpecPolytropicMethodSchultz:
+		return true
+	case ApiMachineStageSpecPolytropicMethodStepwise:
+		return true
+	default:
+		return false
+	}
+}
+
 // Defines values for ApiMachineStageSpecSlipModel.
 const (
 	ApiMachineStageSpecSlipModelStanitz ApiMachineStageSpecSlipModel = "stanitz"
@@ -388,6 +406,30 @@ func (e ApiMarginChangeOutSeverity) Valid() bool {
 	case ApiMarginChangeOutSeverityOk:
 		return true
 	case ApiMarginChangeOutSeverityWarning:
+		return true
+	default:
+		return false
+	}
+}
+
+// Defines values for ApiOperatingPointOutChokePassage.
+const (
+	ApiOperatingPointOutChokePassageDiffuserThroat ApiOperatingPointOutChokePassage = "diffuser-throat"
+	ApiOperatingPointOutChokePassageEye            ApiOperatingPointOutChokePassage = "eye"
+	ApiOperatingPointOutChokePassageInducerThroat  ApiOperatingPointOutChokePassage = "inducer-throat"
+	ApiOperatingPointOutChokePassageZeroWork       ApiOperatingPointOutChokePassage = "zero-work"
+)
+
+// Valid indicates whether the value is a known member of the ApiOperatingPointOutChokePassage enum.
+func (e ApiOperatingPointOutChokePassage) Valid() bool {
+	switch e {
+	case ApiOperatingPointOutChokePassageDiffuserThroat:
+		return true
+	case ApiOperatingPointOutChokePassageEye:
+		return true
+	case ApiOperatingPointOutChokePassageInducerThroat:
+		return true
+	case ApiOperatingPointOutChokePassageZeroWork:
 		return true
 	default:
 		return false
@@ -448,6 +490,48 @@ func (e ApiPropertiesResponsePhase) Valid() bool {
 	case Supercritical:
 		return true
 	case TwoPhase:
+		return true
+	default:
+		return false
+	}
+}
+
+// Defines values for ApiRateResponseSpeedBasis.
+const (
+	ApiRateResponseSpeedBasisDischargePressure ApiRateResponseSpeedBasis = "discharge-pressure"
+	ApiRateResponseSpeedBasisGiven             ApiRateResponseSpeedBasis = "given"
+)
+
+// Valid indicates whether the value is a known member of the ApiRateResponseSpeedBasis enum.
+func (e ApiRateResponseSpeedBasis) Valid() bool {
+	switch e {
+	case ApiRateResponseSpeedBasisDischargePressure:
+		return true
+	case ApiRateResponseSpeedBasisGiven:
+		return true
+	default:
+		return false
+	}
+}
+
+// Defines values for ApiRateResponseVerdict.
+const (
+	ApiRateResponseVerdictNearLimits   ApiRateResponseVerdict = "near-limits"
+	ApiRateResponseVerdictPastLimit    ApiRateResponseVerdict = "past-limit"
+	ApiRateResponseVerdictPastWarning  ApiRateResponseVerdict = "past-warning"
+	ApiRateResponseVerdictWithinLimits ApiRateResponseVerdict = "within-limits"
+)
+
+// Valid indicates whether the value is a known member of the ApiRateResponseVerdict enum.
+func (e ApiRateResponseVerdict) Valid() bool {
+	switch e {
+	case ApiRateResponseVerdictNearLimits:
+		return true
+	case ApiRateResponseVerdictPastLimit:
+		return true
+	case ApiRateResponseVerdictPastWarning:
+		return true
+	case ApiRateResponseVerdictWithinLimits:
 		return true
 	default:
 		return false
@@ -589,6 +673,30 @@ func (e ApiSpeedChoiceOutBasis) Valid() bool {
 	case ApiSpeedChoiceOutBasisSpecificSpeed:
 		return true
 	case ApiSpeedChoiceOutBasisTipDiameter:
+		return true
+	default:
+		return false
+	}
+}
+
+// Defines values for ApiStageRatingOutChokePassage.
+const (
+	ApiStageRatingOutChokePassageDiffuserThroat ApiStageRatingOutChokePassage = "diffuser-throat"
+	ApiStageRatingOutChokePassageEye            ApiStageRatingOutChokePassage = "eye"
+	ApiStageRatingOutChokePassageInducerThroat  ApiStageRatingOutChokePassage = "inducer-throat"
+	ApiStageRatingOutChokePassageZeroWork       ApiStageRatingOutChokePassage = "zero-work"
+)
+
+// Valid indicates whether the value is a known member of the ApiStageRatingOutChokePassage enum.
+func (e ApiStageRatingOutChokePassage) Valid() bool {
+	switch e {
+	case ApiStageRatingOutChokePassageDiffuserThroat:
+		return true
+	case ApiStageRatingOutChokePassageEye:
+		return true
+	case ApiStageRatingOutChokePassageInducerThroat:
+		return true
+	case ApiStageRatingOutChokePassageZeroWork:
 		return true
 	default:
 		return false
@@ -992,6 +1100,17 @@ type ApiComponentOut struct {
 type ApiComponentsResponse struct {
 	Components []ApiComponentOut `json:"components"`
 	Mixtures   []ApiMixtureOut   `json:"mixtures"`
+}
+
+// ApiCoolerOut defines model for api.CoolerOut.
+type ApiCoolerOut struct {
+	// Condensate Condensate is the liquid removed, kg/s; Duty the heat removed, W.
+	Condensate float64 `json:"condensate"`
+	Duty       float64 `json:"duty"`
+
+	// OutletPressure OutletPressure, Pa absolute, and OutletTemperature, K.
+	OutletPressure    float64 `json:"outlet_pressure"`
+	OutletTemperature float64 `json:"outlet_temperature"`
 }
 
 // ApiCpRangeOut defines model for api.CpRangeOut.
@@ -2068,8 +2187,20 @@ type ApiMachineStageSpec struct {
 	// ExitWidth ExitWidth is the impeller exit width b2, m (or "mm", "in").
 	ExitWidth ApiMachineStageSpec_ExitWidth `json:"exit_width"`
 
+	// ImpellerLossShare ImpellerLossShare is the fraction of the stage loss arising in the
+	// impeller (sets the impeller exit density); default 0.5, as the sizing.
+	//
+	// Example: 0.5
+	ImpellerLossShare *float64 `json:"impeller_loss_share,omitempty"`
+
 	// Inlet Inlet is the impeller inlet as built.
 	Inlet ApiMachineInletSpec `json:"inlet"`
+
+	// PolytropicMethod PolytropicMethod is the method of the design polytropic efficiency and of
+	// the rating's compression path: "stepwise" (default) or "schultz" (ASME PTC 10).
+	//
+	// Example: stepwise
+	PolytropicMethod *ApiMachineStageSpecPolytropicMethod `json:"polytropic_method,omitempty"`
 
 	// PowerInputFactor PowerInputFactor is actual work over Euler work (disc friction, windage); default 1.
 	//
@@ -2109,6 +2240,12 @@ type ApiMachineStageSpec_ExitWidth struct {
 	union json.RawMessage
 }
 
+// ApiMachineStageSpecPolytropicMethod PolytropicMethod is the method of the design polytropic efficiency and of
+// the rating's compression path: "stepwise" (default) or "schultz" (ASME PTC 10).
+//
+// Example: stepwise
+type ApiMachineStageSpecPolytropicMethod string
+
 // ApiMachineStageSpecSlipModel SlipModel is the slip correlation used with blade_count: "wiesner", "stanitz" or "stodola".
 //
 // Example: wiesner
@@ -2125,6 +2262,144 @@ type ApiMachineStageSpecTipDiameter1 = string
 // ApiMachineStageSpec_TipDiameter TipDiameter is the impeller tip diameter D2, m (or "mm", "in").
 type ApiMachineStageSpec_TipDiameter struct {
 	union json.RawMessage
+}
+
+// ApiMapEdgeOut defines model for api.MapEdgeOut.
+type ApiMapEdgeOut struct {
+	ActualVolumeFlow float64 `json:"actual_volume_flow"`
+	Head             float64 `json:"head"`
+
+	// Speed Speed, rev/min; ActualVolumeFlow, m3/s; Head, J/kg.
+	Speed float64 `json:"speed"`
+}
+
+// ApiMapMarkerOut defines model for api.MapMarkerOut.
+type ApiMapMarkerOut struct {
+	ActualVolumeFlow float64 `json:"actual_volume_flow"`
+	Efficiency       float64 `json:"efficiency"`
+	Head             float64 `json:"head"`
+
+	// Speed Speed, rev/min; ActualVolumeFlow, m3/s; Head (polytropic), J/kg; Efficiency (polytropic).
+	Speed float64 `json:"speed"`
+}
+
+// ApiMapOperatingPointSpec defines model for api.MapOperatingPointSpec.
+type ApiMapOperatingPointSpec struct {
+	// Flow Flow is the actual volume flow at suction, m3/s (or "m3/h", "acfm").
+	Flow ApiMapOperatingPointSpec_Flow `json:"flow"`
+
+	// Speed Speed is the first stage's speed, rev/min.
+	Speed ApiMapOperatingPointSpec_Speed `json:"speed"`
+}
+
+// ApiMapOperatingPointSpecFlow0 Flow is the actual volume flow at suction, m3/s (or "m3/h", "acfm").
+//
+// Example: 1.8
+type ApiMapOperatingPointSpecFlow0 = float64
+
+// ApiMapOperatingPointSpecFlow1 a volume-flow with its unit, e.g. "9700 m3/h", "5700 acfm"
+type ApiMapOperatingPointSpecFlow1 = string
+
+// ApiMapOperatingPointSpec_Flow Flow is the actual volume flow at suction, m3/s (or "m3/h", "acfm").
+type ApiMapOperatingPointSpec_Flow struct {
+	union json.RawMessage
+}
+
+// ApiMapOperatingPointSpecSpeed0 Speed is the first stage's speed, rev/min.
+//
+// Example: 11000
+type ApiMapOperatingPointSpecSpeed0 = float64
+
+// ApiMapOperatingPointSpecSpeed1 a speed with its unit, e.g. "21000 rpm", "2200 rad/s"
+type ApiMapOperatingPointSpecSpeed1 = string
+
+// ApiMapOperatingPointSpec_Speed Speed is the first stage's speed, rev/min.
+type ApiMapOperatingPointSpec_Speed struct {
+	union json.RawMessage
+}
+
+// ApiMapPointOut defines model for api.MapPointOut.
+type ApiMapPointOut struct {
+	// ActualVolumeFlow ActualVolumeFlow at suction, m3/s.
+	ActualVolumeFlow float64 `json:"actual_volume_flow"`
+
+	// Efficiency Efficiency is the polytropic efficiency.
+	Efficiency float64 `json:"efficiency"`
+
+	// Head Head is the polytropic head summed over the stages, J/kg.
+	Head float64 `json:"head"`
+
+	// MassFlow MassFlow, kg/s.
+	MassFlow float64 `json:"mass_flow"`
+
+	// Power Power is the shaft power, W.
+	Power float64 `json:"power"`
+
+	// PressureRatio PressureRatio is discharge over suction total pressure.
+	PressureRatio float64 `json:"pressure_ratio"`
+}
+
+// ApiMapRequest defines model for api.MapRequest.
+type ApiMapRequest struct {
+	Gas     ApiGasSpec     `json:"gas"`
+	Machine ApiMachineSpec `json:"machine"`
+
+	// OperatingPoint OperatingPoint is a point to rate and mark on the map.
+	OperatingPoint *ApiMapOperatingPointSpec `json:"operating_point,omitempty"`
+
+	// Points Points is the number of points per speed line; default 25.
+	//
+	// Example: 25
+	Points *int `json:"points,omitempty"`
+
+	// Speeds Speeds are the first stage's speeds of the lines, rev/min (numbers);
+	// default 70, 80, 90, 100 and 105 % of the design speed.
+	//
+	// Example: [8050,9200,10350,11500,12075]
+	Speeds  *[]float64     `json:"speeds,omitempty"`
+	Suction ApiSuctionSpec `json:"suction"`
+}
+
+// ApiMapResponse defines model for api.MapResponse.
+type ApiMapResponse struct {
+	Cautions []string `json:"cautions"`
+
+	// ChokeLine ChokeLine has one point per speed line: the estimated choke flow and the head of the line's last point.
+	ChokeLine []ApiMapEdgeOut `json:"choke_line"`
+
+	// DesignPoint DesignPoint is the rating at the design flow and speed for this gas and suction.
+	DesignPoint ApiMapMarkerOut `json:"design_point"`
+
+	// Gas Gas is the gas model's name; Suction the suction state of the map.
+	//
+	// Example: peng-robinson
+	Gas string `json:"gas"`
+
+	// OperatingPoint OperatingPoint is the point asked for, rated.
+	OperatingPoint *ApiMapMarkerOut `json:"operating_point,omitempty"`
+	Provenance     ApiProvenanceOut `json:"provenance"`
+
+	// SpeedLines SpeedLines run from the estimated surge flow to just short of the estimated choke flow.
+	SpeedLines []ApiSpeedLineOut `json:"speed_lines"`
+
+	// SpeedRange SpeedRange is the machine's speed range as used, rev/min.
+	SpeedRange ApiSpeedRangeOut `json:"speed_range"`
+	Suction    ApiMapStateOut   `json:"suction"`
+
+	// SurgeLine SurgeLine has one point per speed line: the estimated surge flow and the head there.
+	SurgeLine []ApiMapEdgeOut `json:"surge_line"`
+	Warnings  []ApiWarningOut `json:"warnings"`
+}
+
+// ApiMapStateOut defines model for api.MapStateOut.
+type ApiMapStateOut struct {
+	// Pressure Pressure, Pa absolute; Temperature, K.
+	//
+	// Example: 100000
+	Pressure float64 `json:"pressure"`
+
+	// Temperature Example: 300
+	Temperature float64 `json:"temperature"`
 }
 
 // ApiMarginChangeOut defines model for api.MarginChangeOut.
@@ -2187,6 +2462,59 @@ type ApiMixtureOut struct {
 	Names  []string `json:"names"`
 	Source string   `json:"source"`
 }
+
+// ApiOperatingPointOut defines model for api.OperatingPointOut.
+type ApiOperatingPointOut struct {
+	// ChokeFlow ChokeFlow is the estimated choke flow at this speed, m3/s at the machine's suction.
+	//
+	// Example: 2.7
+	ChokeFlow float64 `json:"choke_flow"`
+
+	// ChokeMargin ChokeMargin is 1 − Q/Q_choke at this speed (estimated), the least over the stages.
+	//
+	// Example: 0.3
+	ChokeMargin float64 `json:"choke_margin"`
+
+	// ChokePassage ChokePassage is the passage that chokes, or zero-work where a
+	// backswept impeller's work falls to zero before any passage is sonic.
+	//
+	// Example: inducer-throat
+	ChokePassage ApiOperatingPointOutChokePassage `json:"choke_passage"`
+
+	// ChokeStage Example: 1
+	ChokeStage int `json:"choke_stage"`
+
+	// DesignFlowRatio DesignFlowRatio is Q over the design volume flow at the same speed ratio (Q_design N/N_design).
+	//
+	// Example: 1
+	DesignFlowRatio float64 `json:"design_flow_ratio"`
+
+	// FlowCoefficient FlowCoefficient is the first stage's φ = Q01/(U2 π D2²/4).
+	//
+	// Example: 0.09
+	FlowCoefficient float64 `json:"flow_coefficient"`
+
+	// SurgeFlow SurgeFlow is the estimated surge flow at this speed, m3/s at the machine's suction.
+	//
+	// Example: 1.5
+	SurgeFlow float64 `json:"surge_flow"`
+
+	// SurgeMargin SurgeMargin is Q/Q_surge − 1 at this speed (estimated), the least over the stages.
+	//
+	// Example: 0.25
+	SurgeMargin float64 `json:"surge_margin"`
+
+	// SurgeStage SurgeStage and ChokeStage are the stages (from 1) that reach surge and choke first.
+	//
+	// Example: 1
+	SurgeStage int `json:"surge_stage"`
+}
+
+// ApiOperatingPointOutChokePassage ChokePassage is the passage that chokes, or zero-work where a
+// backswept impeller's work falls to zero before any passage is sonic.
+//
+// Example: inducer-throat
+type ApiOperatingPointOutChokePassage string
 
 // ApiOptionsSpec defines model for api.OptionsSpec.
 type ApiOptionsSpec struct {
@@ -2424,6 +2752,217 @@ type ApiProvenanceOut struct {
 	//
 	// Example: v0.3.0
 	ServiceVersion string `json:"service_version"`
+}
+
+// ApiRateBatchItem defines model for api.RateBatchItem.
+type ApiRateBatchItem struct {
+	// Index Index is the rating's position in the request, from 0.
+	Index   int              `json:"index"`
+	Problem *ApiProblem      `json:"problem,omitempty"`
+	Result  *ApiRateResponse `json:"result,omitempty"`
+
+	// Status Status is the HTTP status the rating would have had on its own.
+	//
+	// Example: 200
+	Status int `json:"status"`
+}
+
+// ApiRateBatchRequest defines model for api.RateBatchRequest.
+type ApiRateBatchRequest struct {
+	// Ratings Ratings are rated independently; each follows the RateRequest schema.
+	Ratings []ApiRateRequest `json:"ratings"`
+}
+
+// ApiRateBatchResponse defines model for api.RateBatchResponse.
+type ApiRateBatchResponse struct {
+	Failed  int                `json:"failed"`
+	Results []ApiRateBatchItem `json:"results"`
+
+	// Succeeded Succeeded and Failed count the results by outcome.
+	Succeeded int `json:"succeeded"`
+}
+
+// ApiRateDischargeOut defines model for api.RateDischargeOut.
+type ApiRateDischargeOut struct {
+	// Pressure Pressure is the discharge total pressure, Pa absolute.
+	//
+	// Example: 420000
+	Pressure float64 `json:"pressure"`
+
+	// Temperature Temperature is the discharge total temperature, K.
+	//
+	// Example: 390
+	Temperature float64 `json:"temperature"`
+}
+
+// ApiRateEfficiencyOut defines model for api.RateEfficiencyOut.
+type ApiRateEfficiencyOut struct {
+	// Isentropic Example: 0.79
+	Isentropic float64 `json:"isentropic"`
+
+	// Polytropic Example: 0.82
+	Polytropic float64 `json:"polytropic"`
+}
+
+// ApiRateRequest defines model for api.RateRequest.
+type ApiRateRequest struct {
+	// DischargePressure DischargePressure is the machine's discharge total pressure, Pa
+	// absolute (or "bara", "psia"): the speed that makes it at this flow is
+	// solved for by a bracketed root search (30-150 % of the design speed).
+	DischargePressure *ApiRateRequest_DischargePressure `json:"discharge_pressure,omitempty"`
+	Flow              ApiFlowSpec                       `json:"flow"`
+	Gas               ApiGasSpec                        `json:"gas"`
+	Machine           ApiMachineSpec                    `json:"machine"`
+
+	// Speed Speed is the first stage's rotational speed, rev/min (or "rpm").
+	// Give it or discharge_pressure, not both.
+	Speed   *ApiRateRequest_Speed `json:"speed,omitempty"`
+	Suction ApiSuctionSpec        `json:"suction"`
+}
+
+// ApiRateRequestDischargePressure0 DischargePressure is the machine's discharge total pressure, Pa
+// absolute (or "bara", "psia"): the speed that makes it at this flow is
+// solved for by a bracketed root search (30-150 % of the design speed).
+//
+// Example: 420000
+type ApiRateRequestDischargePressure0 = float64
+
+// ApiRateRequestDischargePressure1 a pressure with its unit, e.g. "14.7 psia", "1.2 bara", "0.3 barg"
+type ApiRateRequestDischargePressure1 = string
+
+// ApiRateRequest_DischargePressure DischargePressure is the machine's discharge total pressure, Pa
+// absolute (or "bara", "psia"): the speed that makes it at this flow is
+// solved for by a bracketed root search (30-150 % of the design speed).
+type ApiRateRequest_DischargePressure struct {
+	union json.RawMessage
+}
+
+// ApiRateRequestSpeed0 Speed is the first stage's rotational speed, rev/min (or "rpm").
+// Give it or discharge_pressure, not both.
+//
+// Example: 11500
+type ApiRateRequestSpeed0 = float64
+
+// ApiRateRequestSpeed1 a speed with its unit, e.g. "21000 rpm", "2200 rad/s"
+type ApiRateRequestSpeed1 = string
+
+// ApiRateRequest_Speed Speed is the first stage's rotational speed, rev/min (or "rpm").
+// Give it or discharge_pressure, not both.
+type ApiRateRequest_Speed struct {
+	union json.RawMessage
+}
+
+// ApiRateResponse defines model for api.RateResponse.
+type ApiRateResponse struct {
+	// ActualVolumeFlow ActualVolumeFlow is the volume flow at suction, m3/s.
+	//
+	// Example: 1.9
+	ActualVolumeFlow float64 `json:"actual_volume_flow"`
+
+	// Cautions Cautions say what the numbers are and are not, and defer to the manufacturer, standards and codes.
+	Cautions []string `json:"cautions"`
+
+	// DesignShaftPower DesignShaftPower is the machine's shaft power at its design point, W.
+	//
+	// Example: 480000
+	DesignShaftPower float64 `json:"design_shaft_power"`
+
+	// DesignSpeed DesignSpeed is the first stage's design speed, rev/min.
+	//
+	// Example: 11500
+	DesignSpeed float64             `json:"design_speed"`
+	Discharge   ApiRateDischargeOut `json:"discharge"`
+
+	// Efficiency Efficiency is the summed heads over the summed work.
+	Efficiency ApiRateEfficiencyOut `json:"efficiency"`
+
+	// Head Head is summed over the stages, J/kg.
+	Head ApiHeadOut `json:"head"`
+
+	// Limits Limits is every rule applied, with its margin.
+	Limits []ApiLimitOut `json:"limits"`
+
+	// MassFlow MassFlow is the mass flow at suction, kg/s.
+	//
+	// Example: 4.1
+	MassFlow float64 `json:"mass_flow"`
+
+	// OperatingPoint OperatingPoint places the point on the estimated map.
+	OperatingPoint ApiOperatingPointOut `json:"operating_point"`
+	Power          ApiPowerOut          `json:"power"`
+	Provenance     ApiProvenanceOut     `json:"provenance"`
+
+	// Speed Speed is the first stage's speed, rev/min (given or solved).
+	//
+	// Example: 11500
+	Speed float64 `json:"speed"`
+
+	// SpeedBasis SpeedBasis says whether the speed was given or solved for the discharge pressure.
+	//
+	// Example: given
+	SpeedBasis ApiRateResponseSpeedBasis `json:"speed_basis"`
+
+	// SpeedRange SpeedRange is the machine's speed range as used (given or default), rev/min.
+	SpeedRange ApiSpeedRangeOut `json:"speed_range"`
+
+	// Stages Stages are the stages in flow order.
+	Stages             []ApiStageRatingOut `json:"stages"`
+	StandardVolumeFlow ApiStandardFlowsOut `json:"standard_volume_flow"`
+
+	// Verdict Verdict is the worst severity of the warnings.
+	//
+	// Example: near-limits
+	Verdict  ApiRateResponseVerdict `json:"verdict"`
+	Warnings []ApiWarningOut        `json:"warnings"`
+
+	// Work Work is the summed actual specific work, J/kg.
+	//
+	// Example: 76000
+	Work float64 `json:"work"`
+}
+
+// ApiRateResponseSpeedBasis SpeedBasis says whether the speed was given or solved for the discharge pressure.
+//
+// Example: given
+type ApiRateResponseSpeedBasis string
+
+// ApiRateResponseVerdict Verdict is the worst severity of the warnings.
+//
+// Example: near-limits
+type ApiRateResponseVerdict string
+
+// ApiRatingVelocitiesOut defines model for api.RatingVelocitiesOut.
+type ApiRatingVelocitiesOut struct {
+	ExitAbsolute float64 `json:"exit_absolute"`
+
+	// ExitAbsoluteMach ExitAbsoluteMach is c2/a2 at the diffuser inlet.
+	ExitAbsoluteMach float64 `json:"exit_absolute_mach"`
+
+	// ExitFlowAngle ExitFlowAngle is α2 from radial, deg (the surge criterion's angle).
+	ExitFlowAngle float64 `json:"exit_flow_angle"`
+
+	// ExitFlowCoefficient ExitFlowCoefficient is cr2/U2.
+	ExitFlowCoefficient float64 `json:"exit_flow_coefficient"`
+	ExitMeridional      float64 `json:"exit_meridional"`
+	ExitRelative        float64 `json:"exit_relative"`
+	ExitWhirl           float64 `json:"exit_whirl"`
+
+	// InletAbsoluteMach InletAbsoluteMach is c1/a1.
+	InletAbsoluteMach float64 `json:"inlet_absolute_mach"`
+
+	// InletIncidence InletIncidence is the relative flow angle less the blade angle at the rms inlet radius, deg (positive towards surge).
+	InletIncidence float64 `json:"inlet_incidence"`
+
+	// InletMeridional InletMeridional is cm1; InletWhirl cθ1 (prewhirl).
+	InletMeridional float64 `json:"inlet_meridional"`
+
+	// InletRelativeMach InletRelativeMach is W1/a1 at the eye tip (shroud) or D1.
+	InletRelativeMach float64 `json:"inlet_relative_mach"`
+	InletWhirl        float64 `json:"inlet_whirl"`
+
+	// MachineMach MachineMach is U2/a01.
+	MachineMach float64 `json:"machine_mach"`
+	TipSpeed    float64 `json:"tip_speed"`
 }
 
 // ApiRecycleOut defines model for api.RecycleOut.
@@ -2665,7 +3204,8 @@ type ApiSectionResponse struct {
 	StageCountBasis ApiSectionResponseStageCountBasis `json:"stage_count_basis"`
 
 	// Stages Stages are the full stage answers in flow order, each with its own
-	// suction state, mass flow and speed.
+	// suction state, mass flow and speed (their provenance.input_hash is
+	// the section duty's).
 	Stages []ApiStageResponse `json:"stages"`
 
 	// Verdict Verdict follows the worst warning of the section and its stages.
@@ -2797,6 +3337,25 @@ type ApiSpeedChoiceOut struct {
 // Example: specific-speed
 type ApiSpeedChoiceOutBasis string
 
+// ApiSpeedLineOut defines model for api.SpeedLineOut.
+type ApiSpeedLineOut struct {
+	Points []ApiMapPointOut `json:"points"`
+
+	// Speed Speed is the first stage's speed, rev/min.
+	//
+	// Example: 11500
+	Speed float64 `json:"speed"`
+}
+
+// ApiSpeedRangeOut defines model for api.SpeedRangeOut.
+type ApiSpeedRangeOut struct {
+	// MaximumContinuous Example: 12075
+	MaximumContinuous float64 `json:"maximum_continuous"`
+
+	// Minimum Example: 8050
+	Minimum float64 `json:"minimum"`
+}
+
 // ApiSpeedRangeSpec defines model for api.SpeedRangeSpec.
 type ApiSpeedRangeSpec struct {
 	// MaximumContinuous MaximumContinuous is the maximum continuous speed, rev/min.
@@ -2844,6 +3403,60 @@ type ApiSpeedTargetSpec struct {
 	// Example: 0.7
 	SpecificSpeed *float64 `json:"specific_speed,omitempty"`
 }
+
+// ApiStageRatingOut defines model for api.StageRatingOut.
+type ApiStageRatingOut struct {
+	ChokeFlow    float64                       `json:"choke_flow"`
+	ChokeMargin  float64                       `json:"choke_margin"`
+	ChokePassage ApiStageRatingOutChokePassage `json:"choke_passage"`
+
+	// Cooler Cooler is the cooler after this stage, when there is one.
+	Cooler *ApiCoolerOut `json:"cooler,omitempty"`
+
+	// DesignFlowRatio DesignFlowRatio, SurgeMargin and ChokeMargin for this stage.
+	DesignFlowRatio float64 `json:"design_flow_ratio"`
+
+	// Discharge Discharge is the stage's discharge total state (velocity 0).
+	Discharge  ApiStateOut          `json:"discharge"`
+	Efficiency ApiRateEfficiencyOut `json:"efficiency"`
+
+	// FlowCoefficient FlowCoefficient φ, WorkCoefficient w/U2², HeadCoefficient Hp/U2².
+	FlowCoefficient float64    `json:"flow_coefficient"`
+	GasPower        float64    `json:"gas_power"`
+	Head            ApiHeadOut `json:"head"`
+	HeadCoefficient float64    `json:"head_coefficient"`
+
+	// MassFlow MassFlow entering the stage, kg/s; VolumeFlow at its suction, m3/s.
+	MassFlow float64 `json:"mass_flow"`
+
+	// Speed Speed is this stage's speed, rev/min.
+	//
+	// Example: 11500
+	Speed float64 `json:"speed"`
+
+	// Stage Stage is the stage number, from 1.
+	//
+	// Example: 1
+	Stage int `json:"stage"`
+
+	// Suction Suction is the stage's suction total state (velocity 0).
+	Suction ApiStateOut `json:"suction"`
+
+	// SurgeFlow SurgeFlow and ChokeFlow are this stage's estimated surge and choke flows at its suction, m3/s.
+	SurgeFlow   float64 `json:"surge_flow"`
+	SurgeMargin float64 `json:"surge_margin"`
+
+	// Velocities Velocities are the velocity triangles and Mach numbers at this point.
+	Velocities ApiRatingVelocitiesOut `json:"velocities"`
+	VolumeFlow float64                `json:"volume_flow"`
+
+	// Work Work is the actual specific work, J/kg; GasPower ṁ w, W.
+	Work            float64 `json:"work"`
+	WorkCoefficient float64 `json:"work_coefficient"`
+}
+
+// ApiStageRatingOutChokePassage defines model for ApiStageRatingOut.ChokePassage.
+type ApiStageRatingOutChokePassage string
 
 // ApiStageRequest defines model for api.StageRequest.
 type ApiStageRequest struct {
@@ -2984,6 +3597,10 @@ type ApiStageResponse struct {
 
 	// Limits Limits lists every limit rule applied, with its levels and margin.
 	Limits []ApiLimitOut `json:"limits"`
+
+	// Machine Machine is the stage as built, in exactly the shape /v1/machine/rate
+	// and /v1/machine/map take back (numbers in SI).
+	Machine ApiMachineSpec `json:"machine"`
 
 	// MassFlow MassFlow through the stage, kg/s.
 	//
@@ -3334,6 +3951,15 @@ type CheckMachineJSONRequestBody = ApiMachineCheckRequest
 
 // CheckMachineBatchJSONRequestBody defines body for CheckMachineBatch for application/json ContentType.
 type CheckMachineBatchJSONRequestBody = ApiMachineCheckBatchRequest
+
+// MapMachineJSONRequestBody defines body for MapMachine for application/json ContentType.
+type MapMachineJSONRequestBody = ApiMapRequest
+
+// RateMachineJSONRequestBody defines body for RateMachine for application/json ContentType.
+type RateMachineJSONRequestBody = ApiRateRequest
+
+// RateMachineBatchJSONRequestBody defines body for RateMachineBatch for application/json ContentType.
+type RateMachineBatchJSONRequestBody = ApiRateBatchRequest
 
 // SizeSectionJSONRequestBody defines body for SizeSection for application/json ContentType.
 type SizeSectionJSONRequestBody = ApiSectionRequest
@@ -4832,6 +5458,130 @@ func (t *ApiMachineStageSpec_TipDiameter) UnmarshalJSON(b []byte) error {
 	return err
 }
 
+// AsApiMapOperatingPointSpecFlow0 returns the union data inside the ApiMapOperatingPointSpec_Flow as a ApiMapOperatingPointSpecFlow0
+func (t ApiMapOperatingPointSpec_Flow) AsApiMapOperatingPointSpecFlow0() (ApiMapOperatingPointSpecFlow0, error) {
+	var body ApiMapOperatingPointSpecFlow0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiMapOperatingPointSpecFlow0 overwrites any union data inside the ApiMapOperatingPointSpec_Flow as the provided ApiMapOperatingPointSpecFlow0
+func (t *ApiMapOperatingPointSpec_Flow) FromApiMapOperatingPointSpecFlow0(v ApiMapOperatingPointSpecFlow0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiMapOperatingPointSpecFlow0 performs a merge with any union data inside the ApiMapOperatingPointSpec_Flow, using the provided ApiMapOperatingPointSpecFlow0
+func (t *ApiMapOperatingPointSpec_Flow) MergeApiMapOperatingPointSpecFlow0(v ApiMapOperatingPointSpecFlow0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiMapOperatingPointSpecFlow1 returns the union data inside the ApiMapOperatingPointSpec_Flow as a ApiMapOperatingPointSpecFlow1
+func (t ApiMapOperatingPointSpec_Flow) AsApiMapOperatingPointSpecFlow1() (ApiMapOperatingPointSpecFlow1, error) {
+	var body ApiMapOperatingPointSpecFlow1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiMapOperatingPointSpecFlow1 overwrites any union data inside the ApiMapOperatingPointSpec_Flow as the provided ApiMapOperatingPointSpecFlow1
+func (t *ApiMapOperatingPointSpec_Flow) FromApiMapOperatingPointSpecFlow1(v ApiMapOperatingPointSpecFlow1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiMapOperatingPointSpecFlow1 performs a merge with any union data inside the ApiMapOperatingPointSpec_Flow, using the provided ApiMapOperatingPointSpecFlow1
+func (t *ApiMapOperatingPointSpec_Flow) MergeApiMapOperatingPointSpecFlow1(v ApiMapOperatingPointSpecFlow1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiMapOperatingPointSpec_Flow) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiMapOperatingPointSpec_Flow) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
+// AsApiMapOperatingPointSpecSpeed0 returns the union data inside the ApiMapOperatingPointSpec_Speed as a ApiMapOperatingPointSpecSpeed0
+func (t ApiMapOperatingPointSpec_Speed) AsApiMapOperatingPointSpecSpeed0() (ApiMapOperatingPointSpecSpeed0, error) {
+	var body ApiMapOperatingPointSpecSpeed0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiMapOperatingPointSpecSpeed0 overwrites any union data inside the ApiMapOperatingPointSpec_Speed as the provided ApiMapOperatingPointSpecSpeed0
+func (t *ApiMapOperatingPointSpec_Speed) FromApiMapOperatingPointSpecSpeed0(v ApiMapOperatingPointSpecSpeed0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiMapOperatingPointSpecSpeed0 performs a merge with any union data inside the ApiMapOperatingPointSpec_Speed, using the provided ApiMapOperatingPointSpecSpeed0
+func (t *ApiMapOperatingPointSpec_Speed) MergeApiMapOperatingPointSpecSpeed0(v ApiMapOperatingPointSpecSpeed0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiMapOperatingPointSpecSpeed1 returns the union data inside the ApiMapOperatingPointSpec_Speed as a ApiMapOperatingPointSpecSpeed1
+func (t ApiMapOperatingPointSpec_Speed) AsApiMapOperatingPointSpecSpeed1() (ApiMapOperatingPointSpecSpeed1, error) {
+	var body ApiMapOperatingPointSpecSpeed1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiMapOperatingPointSpecSpeed1 overwrites any union data inside the ApiMapOperatingPointSpec_Speed as the provided ApiMapOperatingPointSpecSpeed1
+func (t *ApiMapOperatingPointSpec_Speed) FromApiMapOperatingPointSpecSpeed1(v ApiMapOperatingPointSpecSpeed1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiMapOperatingPointSpecSpeed1 performs a merge with any union data inside the ApiMapOperatingPointSpec_Speed, using the provided ApiMapOperatingPointSpecSpeed1
+func (t *ApiMapOperatingPointSpec_Speed) MergeApiMapOperatingPointSpecSpeed1(v ApiMapOperatingPointSpecSpeed1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiMapOperatingPointSpec_Speed) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiMapOperatingPointSpec_Speed) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
 // AsApiPropertiesRequestAmbient0 returns the union data inside the ApiPropertiesRequest_Ambient as a ApiPropertiesRequestAmbient0
 func (t ApiPropertiesRequest_Ambient) AsApiPropertiesRequestAmbient0() (ApiPropertiesRequestAmbient0, error) {
 	var body ApiPropertiesRequestAmbient0
@@ -5014,6 +5764,130 @@ func (t ApiPropertiesRequest_Temperature) MarshalJSON() ([]byte, error) {
 }
 
 func (t *ApiPropertiesRequest_Temperature) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
+// AsApiRateRequestDischargePressure0 returns the union data inside the ApiRateRequest_DischargePressure as a ApiRateRequestDischargePressure0
+func (t ApiRateRequest_DischargePressure) AsApiRateRequestDischargePressure0() (ApiRateRequestDischargePressure0, error) {
+	var body ApiRateRequestDischargePressure0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiRateRequestDischargePressure0 overwrites any union data inside the ApiRateRequest_DischargePressure as the provided ApiRateRequestDischargePressure0
+func (t *ApiRateRequest_DischargePressure) FromApiRateRequestDischargePressure0(v ApiRateRequestDischargePressure0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiRateRequestDischargePressure0 performs a merge with any union data inside the ApiRateRequest_DischargePressure, using the provided ApiRateRequestDischargePressure0
+func (t *ApiRateRequest_DischargePressure) MergeApiRateRequestDischargePressure0(v ApiRateRequestDischargePressure0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiRateRequestDischargePressure1 returns the union data inside the ApiRateRequest_DischargePressure as a ApiRateRequestDischargePressure1
+func (t ApiRateRequest_DischargePressure) AsApiRateRequestDischargePressure1() (ApiRateRequestDischargePressure1, error) {
+	var body ApiRateRequestDischargePressure1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiRateRequestDischargePressure1 overwrites any union data inside the ApiRateRequest_DischargePressure as the provided ApiRateRequestDischargePressure1
+func (t *ApiRateRequest_DischargePressure) FromApiRateRequestDischargePressure1(v ApiRateRequestDischargePressure1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiRateRequestDischargePressure1 performs a merge with any union data inside the ApiRateRequest_DischargePressure, using the provided ApiRateRequestDischargePressure1
+func (t *ApiRateRequest_DischargePressure) MergeApiRateRequestDischargePressure1(v ApiRateRequestDischargePressure1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiRateRequest_DischargePressure) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiRateRequest_DischargePressure) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
+
+// AsApiRateRequestSpeed0 returns the union data inside the ApiRateRequest_Speed as a ApiRateRequestSpeed0
+func (t ApiRateRequest_Speed) AsApiRateRequestSpeed0() (ApiRateRequestSpeed0, error) {
+	var body ApiRateRequestSpeed0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiRateRequestSpeed0 overwrites any union data inside the ApiRateRequest_Speed as the provided ApiRateRequestSpeed0
+func (t *ApiRateRequest_Speed) FromApiRateRequestSpeed0(v ApiRateRequestSpeed0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiRateRequestSpeed0 performs a merge with any union data inside the ApiRateRequest_Speed, using the provided ApiRateRequestSpeed0
+func (t *ApiRateRequest_Speed) MergeApiRateRequestSpeed0(v ApiRateRequestSpeed0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiRateRequestSpeed1 returns the union data inside the ApiRateRequest_Speed as a ApiRateRequestSpeed1
+func (t ApiRateRequest_Speed) AsApiRateRequestSpeed1() (ApiRateRequestSpeed1, error) {
+	var body ApiRateRequestSpeed1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiRateRequestSpeed1 overwrites any union data inside the ApiRateRequest_Speed as the provided ApiRateRequestSpeed1
+func (t *ApiRateRequest_Speed) FromApiRateRequestSpeed1(v ApiRateRequestSpeed1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiRateRequestSpeed1 performs a merge with any union data inside the ApiRateRequest_Speed, using the provided ApiRateRequestSpeed1
+func (t *ApiRateRequest_Speed) MergeApiRateRequestSpeed1(v ApiRateRequestSpeed1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiRateRequest_Speed) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiRateRequest_Speed) UnmarshalJSON(b []byte) error {
 	err := t.union.UnmarshalJSON(b)
 	return err
 }
@@ -5978,6 +6852,60 @@ type ClientInterface interface {
 	// Corresponds with POST /v1/machine/check/batch (the `CheckMachineBatch` operationId).
 	CheckMachineBatch(ctx context.Context, body CheckMachineBatchJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error)
 
+	// MapMachineWithBody Estimated performance map of an installed machine
+	//
+	// Speed lines (polytropic head, pressure ratio, efficiency and power against actual inlet volume flow) from the estimated surge flow to just short of the estimated choke flow, the surge and choke lines, the design point and an optional operating point, for a gas at a suction state. Content negotiation on the same request: Accept application/json (default) answers the data, image/svg+xml the chart (drawn with gonum/plot), text/csv one row per point with a header naming the units. Surge and choke are estimates.
+	//
+	// Takes any type of body and a specified content type.
+	//
+	// Corresponds with POST /v1/machine/map (the `MapMachine` operationId).
+	MapMachineWithBody(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*http.Response, error)
+
+	// MapMachine Estimated performance map of an installed machine
+	//
+	// Speed lines (polytropic head, pressure ratio, efficiency and power against actual inlet volume flow) from the estimated surge flow to just short of the estimated choke flow, the surge and choke lines, the design point and an optional operating point, for a gas at a suction state. Content negotiation on the same request: Accept application/json (default) answers the data, image/svg+xml the chart (drawn with gonum/plot), text/csv one row per point with a header naming the units. Surge and choke are estimates.
+	//
+	// Takes a body of the `application/json` content type.
+	//
+	// Corresponds with POST /v1/machine/map (the `MapMachine` operationId).
+	MapMachine(ctx context.Context, body MapMachineJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error)
+
+	// RateMachineWithBody Rate an installed machine at an operating point
+	//
+	// Takes a machine as /v1/stage/size answers it (or typed from a datasheet: the least it needs is in the README, "Machines"), a gas, a suction state, a flow and the speed (or the discharge pressure, for which the speed is solved), and answers the discharge state, heads, efficiencies, power, the operating point on the estimated map (flow coefficient, design flow ratio, surge and choke margins and flows), the velocity triangles of each stage, every limit check, warnings, provenance and cautions. Off-design work from the Euler equation with slip; efficiency after Casey & Robinson (2013); surge and choke are estimates.
+	//
+	// Takes any type of body and a specified content type.
+	//
+	// Corresponds with POST /v1/machine/rate (the `RateMachine` operationId).
+	RateMachineWithBody(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*http.Response, error)
+
+	// RateMachine Rate an installed machine at an operating point
+	//
+	// Takes a machine as /v1/stage/size answers it (or typed from a datasheet: the least it needs is in the README, "Machines"), a gas, a suction state, a flow and the speed (or the discharge pressure, for which the speed is solved), and answers the discharge state, heads, efficiencies, power, the operating point on the estimated map (flow coefficient, design flow ratio, surge and choke margins and flows), the velocity triangles of each stage, every limit check, warnings, provenance and cautions. Off-design work from the Euler equation with slip; efficiency after Casey & Robinson (2013); surge and choke are estimates.
+	//
+	// Takes a body of the `application/json` content type.
+	//
+	// Corresponds with POST /v1/machine/rate (the `RateMachine` operationId).
+	RateMachine(ctx context.Context, body RateMachineJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error)
+
+	// RateMachineBatchWithBody Rate an installed machine at many operating points in one call
+	//
+	// Rates up to 500 operating points independently (in parallel over the cores) and returns one item per rating in request order: a result, or the problem the rating would have had on its own (its pointers are relative to the rating). A malformed body or a rating of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /ratings/INDEX.
+	//
+	// Takes any type of body and a specified content type.
+	//
+	// Corresponds with POST /v1/machine/rate/batch (the `RateMachineBatch` operationId).
+	RateMachineBatchWithBody(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*http.Response, error)
+
+	// RateMachineBatch Rate an installed machine at many operating points in one call
+	//
+	// Rates up to 500 operating points independently (in parallel over the cores) and returns one item per rating in request order: a result, or the problem the rating would have had on its own (its pointers are relative to the rating). A malformed body or a rating of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /ratings/INDEX.
+	//
+	// Takes a body of the `application/json` content type.
+	//
+	// Corresponds with POST /v1/machine/rate/batch (the `RateMachineBatch` operationId).
+	RateMachineBatch(ctx context.Context, body RateMachineBatchJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error)
+
 	// SizeSectionWithBody Size a multi-stage section with intercooling
 	//
 	// Turns a duty too big for one impeller into a section: the stage count (given, or the least for which every stage stays inside its levels: tip speed, stage pressure ratio and head, discharge temperature, flow-coefficient band), the split (equal polytropic head), coolers between stages (outlet temperature or coolant + approach, pressure drop, condensate removed by a flash at the outlet), every stage's full answer, the section totals (mechanical losses once per shaft), warnings and the machine as built for /v1/machine/rate, /map and /check. "geared" gives each stage its own speed; "inline" one shaft speed. Results are preliminary estimates; see the cautions field.
@@ -6208,6 +7136,120 @@ func (c *Client) CheckMachineBatchWithBody(ctx context.Context, contentType stri
 // Corresponds with POST /v1/machine/check/batch (the `CheckMachineBatch` operationId).
 func (c *Client) CheckMachineBatch(ctx context.Context, body CheckMachineBatchJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error) {
 	req, err := NewCheckMachineBatchRequest(c.Server, body)
+	if err != nil {
+		return nil, err
+	}
+	req = req.WithContext(ctx)
+	if err := c.applyEditors(ctx, req, reqEditors); err != nil {
+		return nil, err
+	}
+	return c.Client.Do(req)
+}
+
+// MapMachineWithBody Estimated performance map of an installed machine
+//
+// Speed lines (polytropic head, pressure ratio, efficiency and power against actual inlet volume flow) from the estimated surge flow to just short of the estimated choke flow, the surge and choke lines, the design point and an optional operating point, for a gas at a suction state. Content negotiation on the same request: Accept application/json (default) answers the data, image/svg+xml the chart (drawn with gonum/plot), text/csv one row per point with a header naming the units. Surge and choke are estimates.
+//
+// Takes any type of body and a specified content type.
+//
+// Corresponds with POST /v1/machine/map (the `MapMachine` operationId).
+func (c *Client) MapMachineWithBody(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*http.Response, error) {
+	req, err := NewMapMachineRequestWithBody(c.Server, contentType, body)
+	if err != nil {
+		return nil, err
+	}
+	req = req.WithContext(ctx)
+	if err := c.applyEditors(ctx, req, reqEditors); err != nil {
+		return nil, err
+	}
+	return c.Client.Do(req)
+}
+
+// MapMachine Estimated performance map of an installed machine
+//
+// Speed lines (polytropic head, pressure ratio, efficiency and power against actual inlet volume flow) from the estimated surge flow to just short of the estimated choke flow, the surge and choke lines, the design point and an optional operating point, for a gas at a suction state. Content negotiation on the same request: Accept application/json (default) answers the data, image/svg+xml the chart (drawn with gonum/plot), text/csv one row per point with a header naming the units. Surge and choke are estimates.
+//
+// Takes a body of the `application/json` content type.
+//
+// Corresponds with POST /v1/machine/map (the `MapMachine` operationId).
+func (c *Client) MapMachine(ctx context.Context, body MapMachineJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error) {
+	req, err := NewMapMachineRequest(c.Server, body)
+	if err != nil {
+		return nil, err
+	}
+	req = req.WithContext(ctx)
+	if err := c.applyEditors(ctx, req, reqEditors); err != nil {
+		return nil, err
+	}
+	return c.Client.Do(req)
+}
+
+// RateMachineWithBody Rate an installed machine at an operating point
+//
+// Takes a machine as /v1/stage/size answers it (or typed from a datasheet: the least it needs is in the README, "Machines"), a gas, a suction state, a flow and the speed (or the discharge pressure, for which the speed is solved), and answers the discharge state, heads, efficiencies, power, the operating point on the estimated map (flow coefficient, design flow ratio, surge and choke margins and flows), the velocity triangles of each stage, every limit check, warnings, provenance and cautions. Off-design work from the Euler equation with slip; efficiency after Casey & Robinson (2013); surge and choke are estimates.
+//
+// Takes any type of body and a specified content type.
+//
+// Corresponds with POST /v1/machine/rate (the `RateMachine` operationId).
+func (c *Client) RateMachineWithBody(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*http.Response, error) {
+	req, err := NewRateMachineRequestWithBody(c.Server, contentType, body)
+	if err != nil {
+		return nil, err
+	}
+	req = req.WithContext(ctx)
+	if err := c.applyEditors(ctx, req, reqEditors); err != nil {
+		return nil, err
+	}
+	return c.Client.Do(req)
+}
+
+// RateMachine Rate an installed machine at an operating point
+//
+// Takes a machine as /v1/stage/size answers it (or typed from a datasheet: the least it needs is in the README, "Machines"), a gas, a suction state, a flow and the speed (or the discharge pressure, for which the speed is solved), and answers the discharge state, heads, efficiencies, power, the operating point on the estimated map (flow coefficient, design flow ratio, surge and choke margins and flows), the velocity triangles of each stage, every limit check, warnings, provenance and cautions. Off-design work from the Euler equation with slip; efficiency after Casey & Robinson (2013); surge and choke are estimates.
+//
+// Takes a body of the `application/json` content type.
+//
+// Corresponds with POST /v1/machine/rate (the `RateMachine` operationId).
+func (c *Client) RateMachine(ctx context.Context, body RateMachineJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error) {
+	req, err := NewRateMachineRequest(c.Server, body)
+	if err != nil {
+		return nil, err
+	}
+	req = req.WithContext(ctx)
+	if err := c.applyEditors(ctx, req, reqEditors); err != nil {
+		return nil, err
+	}
+	return c.Client.Do(req)
+}
+
+// RateMachineBatchWithBody Rate an installed machine at many operating points in one call
+//
+// Rates up to 500 operating points independently (in parallel over the cores) and returns one item per rating in request order: a result, or the problem the rating would have had on its own (its pointers are relative to the rating). A malformed body or a rating of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /ratings/INDEX.
+//
+// Takes any type of body and a specified content type.
+//
+// Corresponds with POST /v1/machine/rate/batch (the `RateMachineBatch` operationId).
+func (c *Client) RateMachineBatchWithBody(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*http.Response, error) {
+	req, err := NewRateMachineBatchRequestWithBody(c.Server, contentType, body)
+	if err != nil {
+		return nil, err
+	}
+	req = req.WithContext(ctx)
+	if err := c.applyEditors(ctx, req, reqEditors); err != nil {
+		return nil, err
+	}
+	return c.Client.Do(req)
+}
+
+// RateMachineBatch Rate an installed machine at many operating points in one call
+//
+// Rates up to 500 operating points independently (in parallel over the cores) and returns one item per rating in request order: a result, or the problem the rating would have had on its own (its pointers are relative to the rating). A malformed body or a rating of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /ratings/INDEX.
+//
+// Takes a body of the `application/json` content type.
+//
+// Corresponds with POST /v1/machine/rate/batch (the `RateMachineBatch` operationId).
+func (c *Client) RateMachineBatch(ctx context.Context, body RateMachineBatchJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error) {
+	req, err := NewRateMachineBatchRequest(c.Server, body)
 	if err != nil {
 		return nil, err
 	}
@@ -6575,6 +7617,126 @@ func NewCheckMachineBatchRequestWithBody(server string, contentType string, body
 	return req, nil
 }
 
+// NewMapMachineRequest calls the generic MapMachine builder with application/json body
+func NewMapMachineRequest(server string, body MapMachineJSONRequestBody) (*http.Request, error) {
+	var bodyReader io.Reader
+	buf, err := json.Marshal(body)
+	if err != nil {
+		return nil, err
+	}
+	bodyReader = bytes.NewReader(buf)
+	return NewMapMachineRequestWithBody(server, "application/json", bodyReader)
+}
+
+// NewMapMachineRequestWithBody constructs an http.Request for the MapMachine method, with any body, and a specified content type
+func NewMapMachineRequestWithBody(server string, contentType string, body io.Reader) (*http.Request, error) {
+	var err error
+
+	serverURL, err := url.Parse(server)
+	if err != nil {
+		return nil, err
+	}
+
+	operationPath := fmt.Sprintf("/v1/machine/map")
+	if operationPath[0] == '/' {
+		operationPath = "." + operationPath
+	}
+
+	queryURL, err := serverURL.Parse(operationPath)
+	if err != nil {
+		return nil, err
+	}
+
+	req, err := http.NewRequest(http.MethodPost, queryURL.String(), body)
+	if err != nil {
+		return nil, err
+	}
+
+	req.Header.Add("Content-Type", contentType)
+
+	return req, nil
+}
+
+// NewRateMachineRequest calls the generic RateMachine builder with application/json body
+func NewRateMachineRequest(server string, body RateMachineJSONRequestBody) (*http.Request, error) {
+	var bodyReader io.Reader
+	buf, err := json.Marshal(body)
+	if err != nil {
+		return nil, err
+	}
+	bodyReader = bytes.NewReader(buf)
+	return NewRateMachineRequestWithBody(server, "application/json", bodyReader)
+}
+
+// NewRateMachineRequestWithBody constructs an http.Request for the RateMachine method, with any body, and a specified content type
+func NewRateMachineRequestWithBody(server string, contentType string, body io.Reader) (*http.Request, error) {
+	var err error
+
+	serverURL, err := url.Parse(server)
+	if err != nil {
+		return nil, err
+	}
+
+	operationPath := fmt.Sprintf("/v1/machine/rate")
+	if operationPath[0] == '/' {
+		operationPath = "." + operationPath
+	}
+
+	queryURL, err := serverURL.Parse(operationPath)
+	if err != nil {
+		return nil, err
+	}
+
+	req, err := http.NewRequest(http.MethodPost, queryURL.String(), body)
+	if err != nil {
+		return nil, err
+	}
+
+	req.Header.Add("Content-Type", contentType)
+
+	return req, nil
+}
+
+// NewRateMachineBatchRequest calls the generic RateMachineBatch builder with application/json body
+func NewRateMachineBatchRequest(server string, body RateMachineBatchJSONRequestBody) (*http.Request, error) {
+	var bodyReader io.Reader
+	buf, err := json.Marshal(body)
+	if err != nil {
+		return nil, err
+	}
+	bodyReader = bytes.NewReader(buf)
+	return NewRateMachineBatchRequestWithBody(server, "application/json", bodyReader)
+}
+
+// NewRateMachineBatchRequestWithBody constructs an http.Request for the RateMachineBatch method, with any body, and a specified content type
+func NewRateMachineBatchRequestWithBody(server string, contentType string, body io.Reader) (*http.Request, error) {
+	var err error
+
+	serverURL, err := url.Parse(server)
+	if err != nil {
+		return nil, err
+	}
+
+	operationPath := fmt.Sprintf("/v1/machine/rate/batch")
+	if operationPath[0] == '/' {
+		operationPath = "." + operationPath
+	}
+
+	queryURL, err := serverURL.Parse(operationPath)
+	if err != nil {
+		return nil, err
+	}
+
+	req, err := http.NewRequest(http.MethodPost, queryURL.String(), body)
+	if err != nil {
+		return nil, err
+	}
+
+	req.Header.Add("Content-Type", contentType)
+
+	return req, nil
+}
+
 // NewSizeSectionRequest calls the generic SizeSection builder with application/json body
 func NewSizeSectionRequest(server string, body SizeSectionJSONRequestBody) (*http.Request, error) {
 	var bodyReader io.Reader
@@ -6853,6 +8015,60 @@ type ClientWithResponsesInterface interface {
 	//
 	// Corresponds with POST /v1/machine/check/batch (the `CheckMachineBatch` operationId).
 	CheckMachineBatchWithResponse(ctx context.Context, body CheckMachineBatchJSONRequestBody, reqEditors ...RequestEditorFn) (*CheckMachineBatchResponse, error)
+
+	// MapMachineWithBodyWithResponse Estimated performance map of an installed machine
+	//
+	// Speed lines (polytropic head, pressure ratio, efficiency and power against actual inlet volume flow) from the estimated surge flow to just short of the estimated choke flow, the surge and choke lines, the design point and an optional operating point, for a gas at a suction state. Content negotiation on the same request: Accept application/json (default) answers the data, image/svg+xml the chart (drawn with gonum/plot), text/csv one row per point with a header naming the units. Surge and choke are estimates.
+	//
+	// Takes any type of body and a specified content type, and returns a wrapper object for the known response body format(s).
+	//
+	// Corresponds with POST /v1/machine/map (the `MapMachine` operationId).
+	MapMachineWithBodyWithResponse(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*MapMachineResponse, error)
+
+	// MapMachineWithResponse Estimated performance map of an installed machine
+	//
+	// Speed lines (polytropic head, pressure ratio, efficiency and power against actual inlet volume flow) from the estimated surge flow to just short of the estimated choke flow, the surge and choke lines, the design point and an optional operating point, for a gas at a suction state. Content negotiation on the same request: Accept application/json (default) answers the data, image/svg+xml the chart (drawn with gonum/plot), text/csv one row per point with a header naming the units. Surge and choke are estimates.
+	//
+	// Takes a body of the `application/json` content type, and returns a wrapper object for the known response body format(s).
+	//
+	// Corresponds with POST /v1/machine/map (the `MapMachine` operationId).
+	MapMachineWithResponse(ctx context.Context, body MapMachineJSONRequestBody, reqEditors ...RequestEditorFn) (*MapMachineResponse, error)
+
+	// RateMachineWithBodyWithResponse Rate an installed machine at an operating point
+	//
+	// Takes a machine as /v1/stage/size answers it (or typed from a datasheet: the least it needs is in the README, "Machines"), a gas, a suction state, a flow and the speed (or the discharge pressure, for which the speed is solved), and answers the discharge state, heads, efficiencies, power, the operating point on the estimated map (flow coefficient, design flow ratio, surge and choke margins and flows), the velocity triangles of each stage, every limit check, warnings, provenance and cautions. Off-design work from the Euler equation with slip; efficiency after Casey & Robinson (2013); surge and choke are estimates.
+	//
+	// Takes any type of body and a specified content type, and returns a wrapper object for the known response body format(s).
+	//
+	// Corresponds with POST /v1/machine/rate (the `RateMachine` operationId).
+	RateMachineWithBodyWithResponse(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*RateMachineResponse, error)
+
+	// RateMachineWithResponse Rate an installed machine at an operating point
+	//
+	// Takes a machine as /v1/stage/size answers it (or typed from a datasheet: the least it needs is in the README, "Machines"), a gas, a suction state, a flow and the speed (or the discharge pressure, for which the speed is solved), and answers the discharge state, heads, efficiencies, power, the operating point on the estimated map (flow coefficient, design flow ratio, surge and choke margins and flows), the velocity triangles of each stage, every limit check, warnings, provenance and cautions. Off-design work from the Euler equation with slip; efficiency after Casey & Robinson (2013); surge and choke are estimates.
+	//
+	// Takes a body of the `application/json` content type, and returns a wrapper object for the known response body format(s).
+	//
+	// Corresponds with POST /v1/machine/rate (the `RateMachine` operationId).
+	RateMachineWithResponse(ctx context.Context, body RateMachineJSONRequestBody, reqEditors ...RequestEditorFn) (*RateMachineResponse, error)
+
+	// RateMachineBatchWithBodyWithResponse Rate an installed machine at many operating points in one call
+	//
+	// Rates up to 500 operating points independently (in parallel over the cores) and returns one item per rating in request order: a result, or the problem the rating would have had on its own (its pointers are relative to the rating). A malformed body or a rating of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /ratings/INDEX.
+	//
+	// Takes any type of body and a specified content type, and returns a wrapper object for the known response body format(s).
+	//
+	// Corresponds with POST /v1/machine/rate/batch (the `RateMachineBatch` operationId).
+	RateMachineBatchWithBodyWithResponse(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*RateMachineBatchResponse, error)
+
+	// RateMachineBatchWithResponse Rate an installed machine at many operating points in one call
+	//
+	// Rates up to 500 operating points independently (in parallel over the cores) and returns one item per rating in request order: a result, or the problem the rating would have had on its own (its pointers are relative to the rating). A malformed body or a rating of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /ratings/INDEX.
+	//
+	// Takes a body of the `application/json` content type, and returns a wrapper object for the known response body format(s).
+	//
+	// Corresponds with POST /v1/machine/rate/batch (the `RateMachineBatch` operationId).
+	RateMachineBatchWithResponse(ctx context.Context, body RateMachineBatchJSONRequestBody, reqEditors ...RequestEditorFn) (*RateMachineBatchResponse, error)
 
 	// SizeSectionWithBodyWithResponse Size a multi-stage section with intercooling
 	//
@@ -7357,6 +8573,269 @@ func (r CheckMachineBatchResponse) ContentType() string {
 	return ""
 }
 
+type MapMachineResponse struct {
+	Body         []byte
+	HTTPResponse *http.Response
+	// JSON200 the response for an HTTP 200 `application/json` response
+	JSON200 *ApiMapResponse
+	// ApplicationproblemJSON400 the response for an HTTP 400 `application/problem+json` response
+	ApplicationproblemJSON400 *ApiProblem
+	// ApplicationproblemJSON401 the response for an HTTP 401 `application/problem+json` response
+	ApplicationproblemJSON401 *ApiProblem
+	// ApplicationproblemJSON413 the response for an HTTP 413 `application/problem+json` response
+	ApplicationproblemJSON413 *ApiProblem
+	// ApplicationproblemJSON422 the response for an HTTP 422 `application/problem+json` response
+	ApplicationproblemJSON422 *ApiProblem
+	// ApplicationproblemJSON500 the response for an HTTP 500 `application/problem+json` response
+	ApplicationproblemJSON500 *ApiProblem
+	// ApplicationproblemJSON503 the response for an HTTP 503 `application/problem+json` response
+	ApplicationproblemJSON503 *ApiProblem
+	// ApplicationproblemJSON504 the response for an HTTP 504 `application/problem+json` response
+	ApplicationproblemJSON504 *ApiProblem
+}
+
+// GetJSON200 returns the response for an HTTP 200 `application/json` response
+func (r MapMachineResponse) GetJSON200() *ApiMapResponse {
+	return r.JSON200
+}
+
+// GetApplicationproblemJSON400 returns the response for an HTTP 400 `application/problem+json` response
+func (r MapMachineResponse) GetApplicationproblemJSON400() *ApiProblem {
+	return r.ApplicationproblemJSON400
+}
+
+// GetApplicationproblemJSON401 returns the response for an HTTP 401 `application/problem+json` response
+func (r MapMachineResponse) GetApplicationproblemJSON401() *ApiProblem {
+	return r.ApplicationproblemJSON401
+}
+
+// GetApplicationproblemJSON413 returns the response for an HTTP 413 `application/problem+json` response
+func (r MapMachineResponse) GetApplicationproblemJSON413() *ApiProblem {
+	return r.ApplicationproblemJSON413
+}
+
+// GetApplicationproblemJSON422 returns the response for an HTTP 422 `application/problem+json` response
+func (r MapMachineResponse) GetApplicationproblemJSON422() *ApiProblem {
+	return r.ApplicationproblemJSON422
+}
+
+// GetApplicationproblemJSON500 returns the response for an HTTP 500 `application/problem+json` response
+func (r MapMachineResponse) GetApplicationproblemJSON500() *ApiProblem {
+	return r.ApplicationproblemJSON500
+}
+
+// GetApplicationproblemJSON503 returns the response for an HTTP 503 `application/problem+json` response
+func (r MapMachineResponse) GetApplicationproblemJSON503() *ApiProblem {
+	return r.ApplicationproblemJSON503
+}
+
+// GetApplicationproblemJSON504 returns the response for an HTTP 504 `application/problem+json` response
+func (r MapMachineResponse) GetApplicationproblemJSON504() *ApiProblem {
+	return r.ApplicationproblemJSON504
+}
+
+// GetBody returns the raw response body bytes
+func (r MapMachineResponse) GetBody() []byte {
+	return r.Body
+}
+
+// Status returns HTTPResponse.Status
+func (r MapMachineResponse) Status() string {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.Status
+	}
+	return http.StatusText(0)
+}
+
+// StatusCode returns HTTPResponse.StatusCode
+func (r MapMachineResponse) StatusCode() int {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.StatusCode
+	}
+	return 0
+}
+
+// ContentType is a convenience method to retrieve the Content-Type value from the HTTP response headers
+func (r MapMachineResponse) ContentType() string {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.Header.Get("Content-Type")
+	}
+	return ""
+}
+
+type RateMachineResponse struct {
+	Body         []byte
+	HTTPResponse *http.Response
+	// JSON200 the response for an HTTP 200 `application/json` response
+	JSON200 *ApiRateResponse
+	// ApplicationproblemJSON400 the response for an HTTP 400 `application/problem+json` response
+	ApplicationproblemJSON400 *ApiProblem
+	// ApplicationproblemJSON401 the response for an HTTP 401 `application/problem+json` response
+	ApplicationproblemJSON401 *ApiProblem
+	// ApplicationproblemJSON413 the response for an HTTP 413 `application/problem+json` response
+	ApplicationproblemJSON413 *ApiProblem
+	// ApplicationproblemJSON422 the response for an HTTP 422 `application/problem+json` response
+	ApplicationproblemJSON422 *ApiProblem
+	// ApplicationproblemJSON500 the response for an HTTP 500 `application/problem+json` response
+	ApplicationproblemJSON500 *ApiProblem
+	// ApplicationproblemJSON503 the response for an HTTP 503 `application/problem+json` response
+	ApplicationproblemJSON503 *ApiProblem
+	// ApplicationproblemJSON504 the response for an HTTP 504 `application/problem+json` response
+	ApplicationproblemJSON504 *ApiProblem
+}
+
+// GetJSON200 returns the response for an HTTP 200 `application/json` response
+func (r RateMachineResponse) GetJSON200() *ApiRateResponse {
+	return r.JSON200
+}
+
+// GetApplicationproblemJSON400 returns the response for an HTTP 400 `application/problem+json` response
+func (r RateMachineResponse) GetApplicationproblemJSON400() *ApiProblem {
+	return r.ApplicationproblemJSON400
+}
+
+// GetApplicationproblemJSON401 returns the response for an HTTP 401 `application/problem+json` response
+func (r RateMachineResponse) GetApplicationproblemJSON401() *ApiProblem {
+	return r.ApplicationproblemJSON401
+}
+
+// GetApplicationproblemJSON413 returns the response for an HTTP 413 `application/problem+json` response
+func (r RateMachineResponse) GetApplicationproblemJSON413() *ApiProblem {
+	return r.ApplicationproblemJSON413
+}
+
+// GetApplicationproblemJSON422 returns the response for an HTTP 422 `application/problem+json` response
+func (r RateMachineResponse) GetApplicationproblemJSON422() *ApiProblem {
+	return r.ApplicationproblemJSON422
+}
+
+// GetApplicationproblemJSON500 returns the response for an HTTP 500 `application/problem+json` response
+func (r RateMachineResponse) GetApplicationproblemJSON500() *ApiProblem {
+	return r.ApplicationproblemJSON500
+}
+
+// GetApplicationproblemJSON503 returns the response for an HTTP 503 `application/problem+json` response
+func (r RateMachineResponse) GetApplicationproblemJSON503() *ApiProblem {
+	return r.ApplicationproblemJSON503
+}
+
+// GetApplicationproblemJSON504 returns the response for an HTTP 504 `application/problem+json` response
+func (r RateMachineResponse) GetApplicationproblemJSON504() *ApiProblem {
+	return r.ApplicationproblemJSON504
+}
+
+// GetBody returns the raw response body bytes
+func (r RateMachineResponse) GetBody() []byte {
+	return r.Body
+}
+
+// Status returns HTTPResponse.Status
+func (r RateMachineResponse) Status() string {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.Status
+	}
+	return http.StatusText(0)
+}
+
+// StatusCode returns HTTPResponse.StatusCode
+func (r RateMachineResponse) StatusCode() int {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.StatusCode
+	}
+	return 0
+}
+
+// ContentType is a convenience method to retrieve the Content-Type value from the HTTP response headers
+func (r RateMachineResponse) ContentType() string {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.Header.Get("Content-Type")
+	}
+	return ""
+}
+
+type RateMachineBatchResponse struct {
+	Body         []byte
+	HTTPResponse *http.Response
+	// JSON200 the response for an HTTP 200 `application/json` response
+	JSON200 *ApiRateBatchResponse
+	// ApplicationproblemJSON400 the response for an HTTP 400 `application/problem+json` response
+	ApplicationproblemJSON400 *ApiProblem
+	// ApplicationproblemJSON401 the response for an HTTP 401 `application/problem+json` response
+	ApplicationproblemJSON401 *ApiProblem
+	// ApplicationproblemJSON413 the response for an HTTP 413 `application/problem+json` response
+	ApplicationproblemJSON413 *ApiProblem
+	// ApplicationproblemJSON500 the response for an HTTP 500 `application/problem+json` response
+	ApplicationproblemJSON500 *ApiProblem
+	// ApplicationproblemJSON503 the response for an HTTP 503 `application/problem+json` response
+	ApplicationproblemJSON503 *ApiProblem
+	// ApplicationproblemJSON504 the response for an HTTP 504 `application/problem+json` response
+	ApplicationproblemJSON504 *ApiProblem
+}
+
+// GetJSON200 returns the response for an HTTP 200 `application/json` response
+func (r RateMachineBatchResponse) GetJSON200() *ApiRateBatchResponse {
+	return r.JSON200
+}
+
+// GetApplicationproblemJSON400 returns the response for an HTTP 400 `application/problem+json` response
+func (r RateMachineBatchResponse) GetApplicationproblemJSON400() *ApiProblem {
+	return r.ApplicationproblemJSON400
+}
+
+// GetApplicationproblemJSON401 returns the response for an HTTP 401 `application/problem+json` response
+func (r RateMachineBatchResponse) GetApplicationproblemJSON401() *ApiProblem {
+	return r.ApplicationproblemJSON401
+}
+
+// GetApplicationproblemJSON413 returns the response for an HTTP 413 `application/problem+json` response
+func (r RateMachineBatchResponse) GetApplicationproblemJSON413() *ApiProblem {
+	return r.ApplicationproblemJSON413
+}
+
+// GetApplicationproblemJSON500 returns the response for an HTTP 500 `application/problem+json` response
+func (r RateMachineBatchResponse) GetApplicationproblemJSON500() *ApiProblem {
+	return r.ApplicationproblemJSON500
+}
+
+// GetApplicationproblemJSON503 returns the response for an HTTP 503 `application/problem+json` response
+func (r RateMachineBatchResponse) GetApplicationproblemJSON503() *ApiProblem {
+	return r.ApplicationproblemJSON503
+}
+
+// GetApplicationproblemJSON504 returns the response for an HTTP 504 `application/problem+json` response
+func (r RateMachineBatchResponse) GetApplicationproblemJSON504() *ApiProblem {
+	return r.ApplicationproblemJSON504
+}
+
+// GetBody returns the raw response body bytes
+func (r RateMachineBatchResponse) GetBody() []byte {
+	return r.Body
+}
+
+// Status returns HTTPResponse.Status
+func (r RateMachineBatchResponse) Status() string {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.Status
+	}
+	return http.StatusText(0)
+}
+
+// StatusCode returns HTTPResponse.StatusCode
+func (r RateMachineBatchResponse) StatusCode() int {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.StatusCode
+	}
+	return 0
+}
+
+// ContentType is a convenience method to retrieve the Content-Type value from the HTTP response headers
+func (r RateMachineBatchResponse) ContentType() string {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.Header.Get("Content-Type")
+	}
+	return ""
+}
+
 type SizeSectionResponse struct {
 	Body         []byte
 	HTTPResponse *http.Response
@@ -7809,6 +9288,96 @@ func (c *ClientWithResponses) CheckMachineBatchWithResponse(ctx context.Context,
 	return ParseCheckMachineBatchResponse(rsp)
 }
 
+// MapMachineWithBodyWithResponse Estimated performance map of an installed machine
+//
+// Speed lines (polytropic head, pressure ratio, efficiency and power against actual inlet volume flow) from the estimated surge flow to just short of the estimated choke flow, the surge and choke lines, the design point and an optional operating point, for a gas at a suction state. Content negotiation on the same request: Accept application/json (default) answers the data, image/svg+xml the chart (drawn with gonum/plot), text/csv one row per point with a header naming the units. Surge and choke are estimates.
+//
+// Takes any type of body and a specified content type, and returns a wrapper object for the known response body format(s).
+//
+// Corresponds with POST /v1/machine/map (the `MapMachine` operationId).
+func (c *ClientWithResponses) MapMachineWithBodyWithResponse(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*MapMachineResponse, error) {
+	rsp, err := c.MapMachineWithBody(ctx, contentType, body, reqEditors...)
+	if err != nil {
+		return nil, err
+	}
+	return ParseMapMachineResponse(rsp)
+}
+
+// MapMachineWithResponse Estimated performance map of an installed machine
+//
+// Speed lines (polytropic head, pressure ratio, efficiency and power against actual inlet volume flow) from the estimated surge flow to just short of the estimated choke flow, the surge and choke lines, the design point and an optional operating point, for a gas at a suction state. Content negotiation on the same request: Accept application/json (default) answers the data, image/svg+xml the chart (drawn with gonum/plot), text/csv one row per point with a header naming the units. Surge and choke are estimates.
+//
+// Takes a body of the `application/json` content type, and returns a wrapper object for the known response body format(s).
+//
+// Corresponds with POST /v1/machine/map (the `MapMachine` operationId).
+func (c *ClientWithResponses) MapMachineWithResponse(ctx context.Context, body MapMachineJSONRequestBody, reqEditors ...RequestEditorFn) (*MapMachineResponse, error) {
+	rsp, err := c.MapMachine(ctx, body, reqEditors...)
+	if err != nil {
+		return nil, err
+	}
+	return ParseMapMachineResponse(rsp)
+}
+
+// RateMachineWithBodyWithResponse Rate an installed machine at an operating point
+//
+// Takes a machine as /v1/stage/size answers it (or typed from a datasheet: the least it needs is in the README, "Machines"), a gas, a suction state, a flow and the speed (or the discharge pressure, for which the speed is solved), and answers the discharge state, heads, efficiencies, power, the operating point on the estimated map (flow coefficient, design flow ratio, surge and choke margins and flows), the velocity triangles of each stage, every limit check, warnings, provenance and cautions. Off-design work from the Euler equation with slip; efficiency after Casey & Robinson (2013); surge and choke are estimates.
+//
+// Takes any type of body and a specified content type, and returns a wrapper object for the known response body format(s).
+//
+// Corresponds with POST /v1/machine/rate (the `RateMachine` operationId).
+func (c *ClientWithResponses) RateMachineWithBodyWithResponse(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*RateMachineResponse, error) {
+	rsp, err := c.RateMachineWithBody(ctx, contentType, body, reqEditors...)
+	if err != nil {
+		return nil, err
+	}
+	return ParseRateMachineResponse(rsp)
+}
+
+// RateMachineWithResponse Rate an installed machine at an operating point
+//
+// Takes a machine as /v1/stage/size answers it (or typed from a datasheet: the least it needs is in the README, "Machines"), a gas, a suction state, a flow and the speed (or the discharge pressure, for which the speed is solved), and answers the discharge state, heads, efficiencies, power, the operating point on the estimated map (flow coefficient, design flow ratio, surge and choke margins and flows), the velocity triangles of each stage, every limit check, warnings, provenance and cautions. Off-design work from the Euler equation with slip; efficiency after Casey & Robinson (2013); surge and choke are estimates.
+//
+// Takes a body of the `application/json` content type, and returns a wrapper object for the known response body format(s).
+//
+// Corresponds with POST /v1/machine/rate (the `RateMachine` operationId).
+func (c *ClientWithResponses) RateMachineWithResponse(ctx context.Context, body RateMachineJSONRequestBody, reqEditors ...RequestEditorFn) (*RateMachineResponse, error) {
+	rsp, err := c.RateMachine(ctx, body, reqEditors...)
+	if err != nil {
+		return nil, err
+	}
+	return ParseRateMachineResponse(rsp)
+}
+
+// RateMachineBatchWithBodyWithResponse Rate an installed machine at many operating points in one call
+//
+// Rates up to 500 operating points independently (in parallel over the cores) and returns one item per rating in request order: a result, or the problem the rating would have had on its own (its pointers are relative to the rating). A malformed body or a rating of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /ratings/INDEX.
+//
+// Takes any type of body and a specified content type, and returns a wrapper object for the known response body format(s).
+//
+// Corresponds with POST /v1/machine/rate/batch (the `RateMachineBatch` operationId).
+func (c *ClientWithResponses) RateMachineBatchWithBodyWithResponse(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*RateMachineBatchResponse, error) {
+	rsp, err := c.RateMachineBatchWithBody(ctx, contentType, body, reqEditors...)
+	if err != nil {
+		return nil, err
+	}
+	return ParseRateMachineBatchResponse(rsp)
+}
+
+// RateMachineBatchWithResponse Rate an installed machine at many operating points in one call
+//
+// Rates up to 500 operating points independently (in parallel over the cores) and returns one item per rating in request order: a result, or the problem the rating would have had on its own (its pointers are relative to the rating). A malformed body or a rating of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /ratings/INDEX.
+//
+// Takes a body of the `application/json` content type, and returns a wrapper object for the known response body format(s).
+//
+// Corresponds with POST /v1/machine/rate/batch (the `RateMachineBatch` operationId).
+func (c *ClientWithResponses) RateMachineBatchWithResponse(ctx context.Context, body RateMachineBatchJSONRequestBody, reqEditors ...RequestEditorFn) (*RateMachineBatchResponse, error) {
+	rsp, err := c.RateMachineBatch(ctx, body, reqEditors...)
+	if err != nil {
+		return nil, err
+	}
+	return ParseRateMachineBatchResponse(rsp)
+}
+
 // SizeSectionWithBodyWithResponse Size a multi-stage section with intercooling
 //
 // Turns a duty too big for one impeller into a section: the stage count (given, or the least for which every stage stays inside its levels: tip speed, stage pressure ratio and head, discharge temperature, flow-coefficient band), the split (equal polytropic head), coolers between stages (outlet temperature or coolant + approach, pressure drop, condensate removed by a flash at the outlet), every stage's full answer, the section totals (mechanical losses once per shaft), warnings and the machine as built for /v1/machine/rate, /map and /check. "geared" gives each stage its own speed; "inline" one shaft speed. Results are preliminary estimates; see the cautions field.
@@ -8193,6 +9762,248 @@ func ParseCheckMachineBatchResponse(rsp *http.Response) (*CheckMachineBatchRespo
 	switch {
 	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 200:
 		var dest ApiMachineCheckBatchResponse
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.JSON200 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 400:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON400 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 401:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON401 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 413:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON413 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 500:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON500 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 503:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON503 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 504:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON504 = &dest
+
+	}
+
+	return response, nil
+}
+
+// ParseMapMachineResponse parses an HTTP response from a MapMachineWithResponse call
+func ParseMapMachineResponse(rsp *http.Response) (*MapMachineResponse, error) {
+	bodyBytes, err := io.ReadAll(rsp.Body)
+	defer func() { _ = rsp.Body.Close() }()
+	if err != nil {
+		return nil, err
+	}
+
+	response := &MapMachineResponse{
+		Body:         bodyBytes,
+		HTTPResponse: rsp,
+	}
+
+	switch {
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 200:
+		var dest ApiMapResponse
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.JSON200 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 400:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON400 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 401:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON401 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 413:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON413 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 422:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON422 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 500:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON500 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 503:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON503 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 504:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON504 = &dest
+
+	case rsp.StatusCode == 200:
+	// Content-type (text/csv) unsupported
+
+	case rsp.StatusCode == 400:
+	// Content-type (text/csv) unsupported
+
+	case rsp.StatusCode == 401:
+	// Content-type (text/csv) unsupported
+
+	case rsp.StatusCode == 413:
+	// Content-type (text/csv) unsupported
+
+	case rsp.StatusCode == 422:
+	// Content-type (text/csv) unsupported
+
+	case rsp.StatusCode == 500:
+	// Content-type (text/csv) unsupported
+
+	case rsp.StatusCode == 503:
+	// Content-type (text/csv) unsupported
+
+	case rsp.StatusCode == 504:
+		// Content-type (text/csv) unsupported
+
+	}
+
+	return response, nil
+}
+
+// ParseRateMachineResponse parses an HTTP response from a RateMachineWithResponse call
+func ParseRateMachineResponse(rsp *http.Response) (*RateMachineResponse, error) {
+	bodyBytes, err := io.ReadAll(rsp.Body)
+	defer func() { _ = rsp.Body.Close() }()
+	if err != nil {
+		return nil, err
+	}
+
+	response := &RateMachineResponse{
+		Body:         bodyBytes,
+		HTTPResponse: rsp,
+	}
+
+	switch {
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 200:
+		var dest ApiRateResponse
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.JSON200 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 400:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON400 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 401:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON401 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 413:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON413 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 422:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON422 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 500:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON500 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 503:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON503 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 504:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON504 = &dest
+
+	}
+
+	return response, nil
+}
+
+// ParseRateMachineBatchResponse parses an HTTP response from a RateMachineBatchWithResponse call
+func ParseRateMachineBatchResponse(rsp *http.Response) (*RateMachineBatchResponse, error) {
+	bodyBytes, err := io.ReadAll(rsp.Body)
+	defer func() { _ = rsp.Body.Close() }()
+	if err != nil {
+		return nil, err
+	}
+
+	response := &RateMachineBatchResponse{
+		Body:         bodyBytes,
+		HTTPResponse: rsp,
+	}
+
+	switch {
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 200:
+		var dest ApiRateBatchResponse
 		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
 			return nil, err
 		}

@@ -186,8 +186,13 @@ type Line struct {
 	mu      float64 // U2/a01
 	etaPeak float64
 	phiPeak float64
-	// chokeFlow is the inducer's choke mass flow, kg/s, and chokePassage
-	// the passage that chokes ("inducer-throat" or "eye").
+	// inducerFlow is the inducer's choke mass flow, kg/s, and
+	// inducerPassage the passage that chokes ("inducer-throat" or "eye").
+	inducerFlow    float64
+	inducerPassage string
+	// chokeFlow is the line's greatest flow, kg/s: the inducer choke or,
+	// when it comes first, the flow at which the impeller's work falls to
+	// zero (ChokeZeroWork); chokePassage names which.
 	chokeFlow    float64
 	chokePassage string
 }
@@ -197,6 +202,11 @@ const (
 	ChokeInducerThroat  = "inducer-throat"
 	ChokeEye            = "eye"
 	ChokeDiffuserThroat = "diffuser-throat"
+	// ChokeZeroWork is the end of a backswept impeller's characteristic
+	// before any passage is sonic: the exit meridional velocity carries off
+	// all the blade's whirl, cr2 = σ U2 / tan β2', and the work (and head)
+	// falls to zero.
+	ChokeZeroWork = "zero-work"
 )
 
 // NewLine returns the speed line of stage s at speed n for gas m at
@@ -227,6 +237,10 @@ func NewLine(m gas.Model, suction gas.State, n physics.RevPerMin, s Stage) (*Lin
 	l.mu = l.u2 / float64(suction.SoundSpeed)
 	if err := l.inducerChoke(); err != nil {
 		return nil, err
+	}
+	l.chokeFlow, l.chokePassage = l.inducerFlow, l.inducerPassage
+	if z, ok := l.zeroWorkFlow(); ok && z < l.chokeFlow {
+		l.chokeFlow, l.chokePassage = z, ChokeZeroWork
 	}
 	phiChoke := l.chokeFlow / float64(suction.Density) / (l.u2 * l.area2)
 	l.phiPeak = s.Design.FlowCoefficient
@@ -269,8 +283,40 @@ func (l *Line) MassFlow(phi float64) float64 {
 }
 
 // InducerChoke returns the inducer's choke mass flow, kg/s, and the
-// passage that chokes.
-func (l *Line) InducerChoke() (float64, string) { return l.chokeFlow, l.chokePassage }
+// passage that chokes (sonic flow only).
+func (l *Line) InducerChoke() (float64, string) { return l.inducerFlow, l.inducerPassage }
+
+// MaxFlow returns the line's greatest mass flow, kg/s, before any vaned
+// diffuser: the inducer choke, or the zero-work flow when it comes first,
+// and which of them.
+func (l *Line) MaxFlow() (float64, string) { return l.chokeFlow, l.chokePassage }
+
+// zeroWorkFlow estimates the mass flow at which a backswept impeller's
+// Euler work falls to zero (no prewhirl): cr2 = σ U2 / tan β2', the exit
+// static state at that velocity from the suction stagnation state (no
+// work, no loss), ṁ = ρ2 cr2 π D2 b2 (1 − B); the exit's sonic flux when
+// that velocity is supersonic. ok is false for radial blades (no such
+// flow).
+func (l *Line) zeroWorkFlow() (float64, bool) {
+	s := l.stage
+	tanB := math.Tan(rad(s.BladeExitAngle))
+	if !(tanB > 1e-9) {
+		return 0, false
+	}
+	cr := s.SlipFactor * l.u2 / tanB
+	fs, cs, err := SonicFlux(l.model, l.suction)
+	if err != nil {
+		return 0, false
+	}
+	if cr >= float64(cs) {
+		return fs * l.aExit, true
+	}
+	st, err := gas.StaticState(l.model, l.suction, physics.MeterPerS(cr))
+	if err != nil {
+		return fs * l.aExit, true
+	}
+	return float64(st.Density) * cr * l.aExit, true
+}
 
 func (l *Line) inducerChoke() error {
 	s, m, st := l.stage, l.model, l.suction
@@ -313,12 +359,12 @@ func (l *Line) inducerChoke() error {
 		_ = sst
 		ct1 = c * cosA * tanA
 	}
-	l.chokeFlow, l.chokePassage = relFlow, ChokeInducerThroat
+	l.inducerFlow, l.inducerPassage = relFlow, ChokeInducerThroat
 	if eyeFlow < relFlow {
-		l.chokeFlow, l.chokePassage = eyeFlow, ChokeEye
+		l.inducerFlow, l.inducerPassage = eyeFlow, ChokeEye
 	}
-	if !(l.chokeFlow > 0) || math.IsInf(l.chokeFlow, 0) {
-		return &physics.DomainError{Name: "inlet", Value: l.chokeFlow, Want: "a finite choke flow"}
+	if !(l.inducerFlow > 0) || math.IsInf(l.inducerFlow, 0) {
+		return &physics.DomainError{Name: "inlet", Value: l.inducerFlow, Want: "a finite choke flow"}
 	}
 	return nil
 }
@@ -394,7 +440,7 @@ func (l *Line) AtFrom(mdot float64, near *Point) (Point, error) {
 	p.MassFlow, p.VolumeFlow = mdot, mdot/float64(st.Density)
 	p.FlowCoefficient = l.FlowCoefficient(mdot)
 	p.TipSpeed, p.TipMach = l.u2, l.mu
-	eta, err := Efficiency(p.FlowCoefficient, l.phiPeak, l.FlowCoefficient(l.chokeFlow), l.etaPeak)
+	eta, err := Efficiency(p.FlowCoefficient, l.phiPeak, l.FlowCoefficient(l.chokeFlow), l.etaPeak, ChokeSideExponent(l.mu))
 	if err != nil {
 		return Point{}, pastChoke(mdot, l.chokeFlow, l.passageName(l.chokePassage))
 	}
@@ -531,6 +577,8 @@ func (l *Line) passageName(p string) string {
 		return "vaned diffuser throat"
 	case ChokeInducerThroat:
 		return "inducer throat"
+	case ChokeZeroWork:
+		return "impeller (its work falls to zero at this flow)"
 	}
 	return p
 }
@@ -570,42 +618,75 @@ func (l *Line) Surge() (float64, error) {
 }
 
 // Choke returns the choke mass flow of the line, kg/s, and the passage
-// that chokes: the inducer (see NewLine) or, for a vaned diffuser, its
-// throat, where the absolute flow from the impeller exit total state
-// reaches sonic speed: the fixed point ṁ = A_th (ρc)*(h02(ṁ), s02(ṁ))
-// (SonicFlux; Dixon & Hall 2014, ch. 1 and §7.11, vaned diffuser).
+// that chokes: the inducer (see NewLine), the zero-work flow, or, for a
+// vaned diffuser, its throat, where the absolute flow from the impeller
+// exit total state reaches sonic speed: the root of
+// h(ṁ) = A_th (ρc)*(h02(ṁ), s02(ṁ)) − ṁ (SonicFlux; Dixon & Hall 2014,
+// ch. 1 and §7.11, vaned diffuser), which falls with the flow, found by
+// regula falsi (Illinois) between a fifth of the line's greatest flow and
+// that flow; a flow the stage cannot reach counts as past the root.
 func (l *Line) Choke() (float64, string, error) {
 	if l.stage.DiffuserThroatArea <= 0 {
 		return l.chokeFlow, l.chokePassage, nil
 	}
-	mdot := 0.9 * l.chokeFlow
-	var prev *Point
-	for range 40 {
-		p, err := l.AtFrom(mdot, prev)
+	h := func(mdot float64) (float64, bool) {
+		p, err := l.At(mdot)
 		if err != nil {
-			// The exit or diffuser fails before the inducer: take it as the
-			// diffuser choking below this flow.
-			mdot *= 0.95
-			prev = nil
-			continue
+			return 0, false
 		}
 		f, _, err := SonicFlux(l.model, p.ExitTotal)
 		if err != nil {
-			return 0, "", fmt.Errorf("diffuser choke: %w", err)
+			return 0, false
 		}
-		next := f * l.stage.DiffuserThroatArea
-		if next >= l.chokeFlow {
-			if mdot >= 0.999*l.chokeFlow {
-				return l.chokeFlow, l.chokePassage, nil
-			}
-			next = math.Min(next, 0.9999*l.chokeFlow)
-		}
-		if math.Abs(next-mdot) <= 1e-9*mdot {
-			return next, ChokeDiffuserThroat, nil
-		}
-		mdot, prev = next, &p
+		return f*l.stage.DiffuserThroatArea - mdot, true
 	}
-	return mdot, ChokeDiffuserThroat, nil
+	hiM := l.chokeFlow * (1 - 1e-9)
+	hHi, ok := h(hiM)
+	if ok && hHi >= 0 {
+		return l.chokeFlow, l.chokePassage, nil
+	}
+	loM := 0.2 * l.chokeFlow
+	hLo, ok := h(loM)
+	if !ok || hLo <= 0 {
+		return loM, ChokeDiffuserThroat, nil // chokes below a fifth of the line's greatest flow
+	}
+	okHi := !math.IsNaN(hHi) && ok && hHi < 0
+	if !okHi {
+		hHi = math.NaN()
+	}
+	side := 0
+	x := 0.5 * (loM + hiM)
+	for range 100 {
+		if okHi {
+			x = hiM - hHi*(hiM-loM)/(hHi-hLo)
+			if !(x > loM && x < hiM) {
+				x = 0.5 * (loM + hiM)
+			}
+		} else {
+			x = 0.5 * (loM + hiM)
+		}
+		hx, ok := h(x)
+		switch {
+		case !ok:
+			hiM, okHi, side = x, false, 0
+			continue
+		case math.Abs(hx) <= 1e-10*x || hiM-loM <= 1e-10*x:
+			return x, ChokeDiffuserThroat, nil
+		case hx > 0:
+			loM, hLo = x, hx
+			if side == -1 {
+				hHi /= 2
+			}
+			side = -1
+		default:
+			hiM, hHi, okHi = x, hx, true
+			if side == 1 {
+				hLo /= 2
+			}
+			side = 1
+		}
+	}
+	return x, ChokeDiffuserThroat, nil
 }
 
 // InletBladeAngle returns the inlet blade angle β1 (deg from meridional)

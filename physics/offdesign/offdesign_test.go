@@ -95,28 +95,36 @@ func TestSonicFluxPerfectGas(t *testing.T) {
 // choke side; the form is from memory), and refuses flows at or past
 // choke and NaN.
 func TestEfficiencyShape(t *testing.T) {
-	peak, err := offdesign.Efficiency(0.09, 0.09, 0.15, 0.82)
+	peak, err := offdesign.Efficiency(0.09, 0.09, 0.15, 0.82, 3)
 	require.NoError(t, err)
 	assert.InDelta(t, 0.82, peak, 1e-15)
 	prev := 0.0
 	for phi := 0.03; phi <= 0.09+1e-12; phi += 0.005 {
-		e, err := offdesign.Efficiency(phi, 0.09, 0.15, 0.82)
+		e, err := offdesign.Efficiency(phi, 0.09, 0.15, 0.82, 3)
 		require.NoError(t, err)
 		assert.GreaterOrEqual(t, e, prev, "rises to the peak at %g", phi)
 		prev = e
 	}
 	for phi := 0.095; phi < 0.15; phi += 0.005 {
-		e, err := offdesign.Efficiency(phi, 0.09, 0.15, 0.82)
+		e, err := offdesign.Efficiency(phi, 0.09, 0.15, 0.82, 3)
 		require.NoError(t, err)
 		assert.Less(t, e, prev, "falls after the peak at %g", phi)
 		prev = e
 	}
-	surge, _ := offdesign.Efficiency(0.09*0.8, 0.09, 0.15, 0.82)
-	choke, _ := offdesign.Efficiency(0.09+0.2*0.06*3, 0.09, 0.15, 0.82) // 60 % of the way to choke
+	surge, _ := offdesign.Efficiency(0.09*0.8, 0.09, 0.15, 0.82, 3)
+	choke, _ := offdesign.Efficiency(0.09+0.6*0.06, 0.09, 0.15, 0.82, 3) // 60 % of the way to choke
 	assert.Less(t, 0.82-surge, 0.82-choke)
+	// a transonic line keeps its efficiency longer, then falls to choke
+	low, _ := offdesign.Efficiency(0.11, 0.09, 0.15, 0.82, offdesign.ChokeSideExponent(0.3))
+	high, _ := offdesign.Efficiency(0.11, 0.09, 0.15, 0.82, offdesign.ChokeSideExponent(1.1))
+	assert.Less(t, low, high)
+	assert.InDelta(t, 4.0, offdesign.ChokeSideExponent(1.3), 1e-15)
+	assert.InDelta(t, 2.0, offdesign.ChokeSideExponent(0), 1e-15)
+	_, err = offdesign.Efficiency(0.05, 0.09, 0.15, 0.82, math.NaN())
+	require.ErrorIs(t, err, physics.ErrDomain)
 	for _, bad := range [][4]float64{{0.15, 0.09, 0.15, 0.82}, {0.2, 0.09, 0.15, 0.82}, {math.NaN(), 0.09, 0.15, 0.82},
 		{0.05, 0.09, 0.08, 0.82}, {0.05, 0.09, 0.15, 1.2}, {0.05, math.NaN(), 0.15, 0.8}} {
-		_, err := offdesign.Efficiency(bad[0], bad[1], bad[2], bad[3])
+		_, err := offdesign.Efficiency(bad[0], bad[1], bad[2], bad[3], 3)
 		require.ErrorIs(t, err, physics.ErrDomain, "%v", bad)
 	}
 }
