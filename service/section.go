@@ -599,7 +599,7 @@ func (s *Service) sizeStages(ctx context.Context, d SectionDuty, ic Intercooling
 			return res, sectionStageErr(err, k+1)
 		}
 		res.Stages = append(res.Stages, st)
-			if pl.cooler != nil {
+		if pl.cooler != nil {
 			// The cooler again from the stage's discharge as sized (the
 			// outlet depends only on its temperature and pressure; the duty
 			// on the inlet too).

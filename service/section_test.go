@@ -195,4 +195,3 @@ func TestSectionBadInput(t *testing.T) {
 		assert.Equal(t, c.field, ie.Field, c.name)
 	}
 }
-
