@@ -7,6 +7,7 @@ import (
 	"net/http"
 	"runtime"
 	"runtime/debug"
+	"strconv"
 	"sync"
 
 	"github.com/gin-gonic/gin"
@@ -378,7 +379,7 @@ func (h checkHandler) check(c *gin.Context) {
 // checkBatch runs many checks.
 //
 //	@Summary		Check installed machines against many duties in one call
-//	@Description	Runs up to 200 duty-change checks independently (in parallel over the cores) and returns one item per check in request order: a result, or the problem the check would have had on its own (its pointers are relative to the check). A malformed body or a check of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /checks/INDEX; a check whose unit strings do not parse, or whose duty is physically impossible, gets a problem item of its own.
+//	@Description	Runs up to 200 duty-change checks independently (in parallel over the cores) and returns one item per check in request order: a result, or the problem the check would have had on its own, its pointers naming the field in the batch (/checks/INDEX/...). A malformed body or a check of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /checks/INDEX; a check whose unit strings do not parse, or whose duty is physically impossible, gets a problem item of its own.
 //	@Tags			machine
 //	@Accept			json
 //	@Produce		json
@@ -452,6 +453,11 @@ func (h checkHandler) one(c *gin.Context, i int, r MachineCheckRequest) (item Ma
 		p := problemFor(err)
 		if p.Status == http.StatusInternalServerError {
 			h.log.Error("batch item failed", "request_id", c.GetString(requestIDKey), "index", i, "err", err)
+		}
+		// Pointers name the field in the batch request: /checks/N/...
+		prefix := "/checks/" + strconv.Itoa(i)
+		for k := range p.Errors {
+			p.Errors[k].Pointer = prefix + p.Errors[k].Pointer
 		}
 		item.Status, item.Problem = p.Status, &p
 		return item

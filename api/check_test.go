@@ -187,8 +187,8 @@ func TestCheckBatch(t *testing.T) {
 		assert.Equal(t, want, out.Results[i].Status, "item %d", i)
 	}
 	assert.Equal(t, "fits", out.Results[0].Result.Verdict)
-	assert.Equal(t, "/duty/suction/temperature", out.Results[1].Problem.Errors[0].Pointer)
-	assert.Equal(t, "/duty/suction/pressure", out.Results[2].Problem.Errors[0].Pointer)
+	assert.Equal(t, "/checks/1/duty/suction/temperature", out.Results[1].Problem.Errors[0].Pointer)
+	assert.Equal(t, "/checks/2/duty/suction/pressure", out.Results[2].Problem.Errors[0].Pointer)
 
 	w = do(h, http.MethodPost, "/v1/machine/check/batch", `{"checks": [`+string(own)+`, {"machine": {"stages": []}, "duty": {}, "speed": 3}]}`)
 	require.Equal(t, http.StatusBadRequest, w.Code)

@@ -6836,7 +6836,7 @@ type ClientInterface interface {
 
 	// CheckMachineBatchWithBody Check installed machines against many duties in one call
 	//
-	// Runs up to 200 duty-change checks independently (in parallel over the cores) and returns one item per check in request order: a result, or the problem the check would have had on its own (its pointers are relative to the check). A malformed body or a check of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /checks/INDEX; a check whose unit strings do not parse, or whose duty is physically impossible, gets a problem item of its own.
+	// Runs up to 200 duty-change checks independently (in parallel over the cores) and returns one item per check in request order: a result, or the problem the check would have had on its own, its pointers naming the field in the batch (/checks/INDEX/...). A malformed body or a check of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /checks/INDEX; a check whose unit strings do not parse, or whose duty is physically impossible, gets a problem item of its own.
 	//
 	// Takes any type of body and a specified content type.
 	//
@@ -6845,7 +6845,7 @@ type ClientInterface interface {
 
 	// CheckMachineBatch Check installed machines against many duties in one call
 	//
-	// Runs up to 200 duty-change checks independently (in parallel over the cores) and returns one item per check in request order: a result, or the problem the check would have had on its own (its pointers are relative to the check). A malformed body or a check of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /checks/INDEX; a check whose unit strings do not parse, or whose duty is physically impossible, gets a problem item of its own.
+	// Runs up to 200 duty-change checks independently (in parallel over the cores) and returns one item per check in request order: a result, or the problem the check would have had on its own, its pointers naming the field in the batch (/checks/INDEX/...). A malformed body or a check of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /checks/INDEX; a check whose unit strings do not parse, or whose duty is physically impossible, gets a problem item of its own.
 	//
 	// Takes a body of the `application/json` content type.
 	//
@@ -7110,7 +7110,7 @@ func (c *Client) CheckMachine(ctx context.Context, body CheckMachineJSONRequestB
 
 // CheckMachineBatchWithBody Check installed machines against many duties in one call
 //
-// Runs up to 200 duty-change checks independently (in parallel over the cores) and returns one item per check in request order: a result, or the problem the check would have had on its own (its pointers are relative to the check). A malformed body or a check of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /checks/INDEX; a check whose unit strings do not parse, or whose duty is physically impossible, gets a problem item of its own.
+// Runs up to 200 duty-change checks independently (in parallel over the cores) and returns one item per check in request order: a result, or the problem the check would have had on its own, its pointers naming the field in the batch (/checks/INDEX/...). A malformed body or a check of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /checks/INDEX; a check whose unit strings do not parse, or whose duty is physically impossible, gets a problem item of its own.
 //
 // Takes any type of body and a specified content type.
 //
@@ -7129,7 +7129,7 @@ func (c *Client) CheckMachineBatchWithBody(ctx context.Context, contentType stri
 
 // CheckMachineBatch Check installed machines against many duties in one call
 //
-// Runs up to 200 duty-change checks independently (in parallel over the cores) and returns one item per check in request order: a result, or the problem the check would have had on its own (its pointers are relative to the check). A malformed body or a check of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /checks/INDEX; a check whose unit strings do not parse, or whose duty is physically impossible, gets a problem item of its own.
+// Runs up to 200 duty-change checks independently (in parallel over the cores) and returns one item per check in request order: a result, or the problem the check would have had on its own, its pointers naming the field in the batch (/checks/INDEX/...). A malformed body or a check of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /checks/INDEX; a check whose unit strings do not parse, or whose duty is physically impossible, gets a problem item of its own.
 //
 // Takes a body of the `application/json` content type.
 //
@@ -8000,7 +8000,7 @@ type ClientWithResponsesInterface interface {
 
 	// CheckMachineBatchWithBodyWithResponse Check installed machines against many duties in one call
 	//
-	// Runs up to 200 duty-change checks independently (in parallel over the cores) and returns one item per check in request order: a result, or the problem the check would have had on its own (its pointers are relative to the check). A malformed body or a check of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /checks/INDEX; a check whose unit strings do not parse, or whose duty is physically impossible, gets a problem item of its own.
+	// Runs up to 200 duty-change checks independently (in parallel over the cores) and returns one item per check in request order: a result, or the problem the check would have had on its own, its pointers naming the field in the batch (/checks/INDEX/...). A malformed body or a check of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /checks/INDEX; a check whose unit strings do not parse, or whose duty is physically impossible, gets a problem item of its own.
 	//
 	// Takes any type of body and a specified content type, and returns a wrapper object for the known response body format(s).
 	//
@@ -8009,7 +8009,7 @@ type ClientWithResponsesInterface interface {
 
 	// CheckMachineBatchWithResponse Check installed machines against many duties in one call
 	//
-	// Runs up to 200 duty-change checks independently (in parallel over the cores) and returns one item per check in request order: a result, or the problem the check would have had on its own (its pointers are relative to the check). A malformed body or a check of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /checks/INDEX; a check whose unit strings do not parse, or whose duty is physically impossible, gets a problem item of its own.
+	// Runs up to 200 duty-change checks independently (in parallel over the cores) and returns one item per check in request order: a result, or the problem the check would have had on its own, its pointers naming the field in the batch (/checks/INDEX/...). A malformed body or a check of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /checks/INDEX; a check whose unit strings do not parse, or whose duty is physically impossible, gets a problem item of its own.
 	//
 	// Takes a body of the `application/json` content type, and returns a wrapper object for the known response body format(s).
 	//
@@ -9260,7 +9260,7 @@ func (c *ClientWithResponses) CheckMachineWithResponse(ctx context.Context, body
 
 // CheckMachineBatchWithBodyWithResponse Check installed machines against many duties in one call
 //
-// Runs up to 200 duty-change checks independently (in parallel over the cores) and returns one item per check in request order: a result, or the problem the check would have had on its own (its pointers are relative to the check). A malformed body or a check of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /checks/INDEX; a check whose unit strings do not parse, or whose duty is physically impossible, gets a problem item of its own.
+// Runs up to 200 duty-change checks independently (in parallel over the cores) and returns one item per check in request order: a result, or the problem the check would have had on its own, its pointers naming the field in the batch (/checks/INDEX/...). A malformed body or a check of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /checks/INDEX; a check whose unit strings do not parse, or whose duty is physically impossible, gets a problem item of its own.
 //
 // Takes any type of body and a specified content type, and returns a wrapper object for the known response body format(s).
 //
@@ -9275,7 +9275,7 @@ func (c *ClientWithResponses) CheckMachineBatchWithBodyWithResponse(ctx context.
 
 // CheckMachineBatchWithResponse Check installed machines against many duties in one call
 //
-// Runs up to 200 duty-change checks independently (in parallel over the cores) and returns one item per check in request order: a result, or the problem the check would have had on its own (its pointers are relative to the check). A malformed body or a check of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /checks/INDEX; a check whose unit strings do not parse, or whose duty is physically impossible, gets a problem item of its own.
+// Runs up to 200 duty-change checks independently (in parallel over the cores) and returns one item per check in request order: a result, or the problem the check would have had on its own, its pointers naming the field in the batch (/checks/INDEX/...). A malformed body or a check of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /checks/INDEX; a check whose unit strings do not parse, or whose duty is physically impossible, gets a problem item of its own.
 //
 // Takes a body of the `application/json` content type, and returns a wrapper object for the known response body format(s).
 //
