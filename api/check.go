@@ -22,6 +22,7 @@ const MaxCheckBatch = 200
 // MachineChecker is what the check handler needs of the service layer.
 type MachineChecker interface {
 	CheckMachine(ctx context.Context, req service.CheckRequest) (service.CheckResult, error)
+	CheckMachineShared(ctx context.Context, req service.CheckRequest, memo *service.CheckMemo) (service.CheckResult, error)
 }
 
 type checkHandler struct {
@@ -368,7 +369,7 @@ func (h checkHandler) check(c *gin.Context) {
 		fail(c, h.log, err)
 		return
 	}
-	out, err := h.checkOne(c.Request.Context(), req)
+	out, err := h.checkOne(c.Request.Context(), req, nil)
 	if err != nil {
 		fail(c, h.log, err)
 		return
@@ -401,6 +402,7 @@ func (h checkHandler) checkBatch(c *gin.Context) {
 	}
 	ctx := c.Request.Context()
 	out := MachineCheckBatchResponse{Results: make([]MachineCheckBatchItem, len(req.Checks))}
+	memo := service.NewCheckMemo() // checks of one machine and baseline share it
 	work := make(chan int)
 	var wg sync.WaitGroup
 	for range min(runtime.GOMAXPROCS(0), len(req.Checks)) {
@@ -408,7 +410,7 @@ func (h checkHandler) checkBatch(c *gin.Context) {
 		go func() {
 			defer wg.Done()
 			for i := range work {
-				out.Results[i] = h.one(c, i, req.Checks[i])
+				out.Results[i] = h.one(c, i, req.Checks[i], memo)
 			}
 		}()
 	}
@@ -438,7 +440,7 @@ feed:
 
 // one runs check i of a batch on a worker goroutine; it recovers a panic
 // itself into a 500 item.
-func (h checkHandler) one(c *gin.Context, i int, r MachineCheckRequest) (item MachineCheckBatchItem) {
+func (h checkHandler) one(c *gin.Context, i int, r MachineCheckRequest, memo *service.CheckMemo) (item MachineCheckBatchItem) {
 	item = MachineCheckBatchItem{Index: i}
 	defer func() {
 		if rec := recover(); rec != nil {
@@ -448,7 +450,7 @@ func (h checkHandler) one(c *gin.Context, i int, r MachineCheckRequest) (item Ma
 			item = MachineCheckBatchItem{Index: i, Status: p.Status, Problem: &p}
 		}
 	}()
-	res, err := h.checkOne(c.Request.Context(), r)
+	res, err := h.checkOne(c.Request.Context(), r, memo)
 	if err != nil {
 		p := problemFor(err)
 		if p.Status == http.StatusInternalServerError {
@@ -467,7 +469,8 @@ func (h checkHandler) one(c *gin.Context, i int, r MachineCheckRequest) (item Ma
 }
 
 // checkOne converts, checks and renders one request.
-func (h checkHandler) checkOne(ctx context.Context, req MachineCheckRequest) (MachineCheckResponse, error) {
+// memo (nil for a single check) shares baselines among a batch's checks.
+func (h checkHandler) checkOne(ctx context.Context, req MachineCheckRequest, memo *service.CheckMemo) (MachineCheckResponse, error) {
 	m, err := machineOfSpec(req.Machine, "machine")
 	if err != nil {
 		return MachineCheckResponse{}, err
@@ -483,7 +486,12 @@ func (h checkHandler) checkOne(ctx context.Context, req MachineCheckRequest) (Ma
 		}
 		sr.Baseline = &b
 	}
-	res, err := h.svc.CheckMachine(ctx, sr)
+	var res service.CheckResult
+	if memo != nil {
+		res, err = h.svc.CheckMachineShared(ctx, sr, memo)
+	} else {
+		res, err = h.svc.CheckMachine(ctx, sr)
+	}
 	if err != nil {
 		return MachineCheckResponse{}, err
 	}

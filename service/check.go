@@ -7,6 +7,7 @@ import (
 	"math"
 	"sort"
 	"strconv"
+	"sync"
 
 	"stagewright/physics"
 	"stagewright/physics/gas"
@@ -846,7 +847,7 @@ func prefixed(err error, prefix string) error {
 }
 
 // check runs a duty-change check with the rating rate.
-func (s *Service) check(ctx context.Context, req CheckRequest, rate rateFunc) (CheckResult, error) {
+func (s *Service) check(ctx context.Context, req CheckRequest, rate rateFunc, memo *CheckMemo) (CheckResult, error) {
 	var res CheckResult
 	if err := ctx.Err(); err != nil {
 		return res, err
@@ -884,7 +885,13 @@ func (s *Service) check(ctx context.Context, req CheckRequest, rate rateFunc) (C
 	designSpeed := m.Stages[0].Design.Speed
 	design := CheckDuty{Gas: m.Stages[0].Design.Gas, SuctionPressure: m.Stages[0].Design.SuctionPressure,
 		SuctionTemperature: m.Stages[0].Design.SuctionTemperature, ActualVolumeFlow: &m.Stages[0].Design.VolumeFlow}
-	bo, err := operate(ctx, rate, *base, design, designSpeed, control)
+	bo, err := memo.baseline(hashOf(struct {
+		Machine  Machine
+		Baseline CheckDuty
+		Control  float64
+	}{m, *base, control}), func() (operated, error) {
+		return operate(ctx, rate, *base, design, designSpeed, control)
+	})
 	if err != nil {
 		return res, prefixed(err, basePrefix)
 	}
@@ -909,6 +916,41 @@ func (s *Service) check(ctx context.Context, req CheckRequest, rate rateFunc) (C
 	res.Provenance.Methods = append(append([]Method(nil), a.Provenance.Methods...), checkMethods(control)...)
 	res.Cautions = checkCautions(res, a.Cautions)
 	return res, nil
+}
+
+// CheckMemo shares the baseline operating points among the checks of one
+// batch: checks of the same machine against the same baseline (and surge
+// control margin) find it once. Safe for concurrent use; make one per
+// batch with NewCheckMemo (a nil *CheckMemo shares nothing).
+type CheckMemo struct {
+	mu sync.Mutex
+	m  map[string]*memoEntry
+}
+
+type memoEntry struct {
+	once sync.Once
+	op   operated
+	err  error
+}
+
+// NewCheckMemo returns an empty memo.
+func NewCheckMemo() *CheckMemo { return &CheckMemo{m: map[string]*memoEntry{}} }
+
+// baseline returns the memo's operated baseline under key, running find
+// once per key (callers of the same key wait for the first).
+func (c *CheckMemo) baseline(key string, find func() (operated, error)) (operated, error) {
+	if c == nil || key == "" {
+		return find()
+	}
+	c.mu.Lock()
+	e, ok := c.m[key]
+	if !ok {
+		e = &memoEntry{}
+		c.m[key] = e
+	}
+	c.mu.Unlock()
+	e.once.Do(func() { e.op, e.err = find() })
+	return e.op, e.err
 }
 
 // withControl fills the control-line flow of a point.

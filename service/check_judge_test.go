@@ -117,7 +117,7 @@ func toyCheck(t *testing.T, tm *toyMachine, d CheckDuty) CheckResult {
 	base := toyDuty(tm, 1, 0)
 	m := Machine{Stages: []MachineStage{{Design: DesignPoint{Speed: tm.n0, SuctionPressure: base.SuctionPressure,
 		SuctionTemperature: base.SuctionTemperature, VolumeFlow: *base.ActualVolumeFlow}}}}
-	res, err := New().check(context.Background(), CheckRequest{Machine: m, Duty: d, Baseline: &base}, tm.rate)
+	res, err := New().check(context.Background(), CheckRequest{Machine: m, Duty: d, Baseline: &base}, tm.rate, nil)
 	require.NoError(t, err)
 	return res
 }
@@ -205,17 +205,17 @@ func TestCheckJudgingBadInput(t *testing.T) {
 	m := Machine{Stages: []MachineStage{{Design: DesignPoint{Speed: tm.n0}}}}
 	d := toyDuty(tm, 1, 0)
 	d.DischargePressure = 0.5e5
-	_, err := New().check(context.Background(), CheckRequest{Machine: m, Duty: d}, tm.rate)
+	_, err := New().check(context.Background(), CheckRequest{Machine: m, Duty: d}, tm.rate, nil)
 	var ie *InputError
 	require.ErrorAs(t, err, &ie)
 	assert.Equal(t, "duty.discharge_pressure", ie.Field)
 	bad := 0.9
 	m.SurgeControl = &SurgeControl{Margin: &bad}
-	_, err = New().check(context.Background(), CheckRequest{Machine: m, Duty: toyDuty(tm, 1, 0)}, tm.rate)
+	_, err = New().check(context.Background(), CheckRequest{Machine: m, Duty: toyDuty(tm, 1, 0)}, tm.rate, nil)
 	require.ErrorAs(t, err, &ie)
 	assert.Equal(t, "machine.surge_control.margin", ie.Field)
 	m.SurgeControl = nil
-	_, err = New().check(context.Background(), CheckRequest{Machine: m, Duty: toyDuty(tm, 1, 0)}, tm.rate)
+	_, err = New().check(context.Background(), CheckRequest{Machine: m, Duty: toyDuty(tm, 1, 0)}, tm.rate, nil)
 	require.ErrorAs(t, err, &ie, "no baseline and no design discharge pressure")
 	assert.Equal(t, "machine.stages.0.design.discharge_pressure", ie.Field)
 }

@@ -11,7 +11,13 @@ import (
 // makes the discharge pressure, stages stacked), then the verdict, the
 // margins before and after, what changed and the PTC 10 similarity.
 func (s *Service) CheckMachine(ctx context.Context, req CheckRequest) (CheckResult, error) {
-	return s.check(ctx, req, s.rateFor(req.Machine))
+	return s.check(ctx, req, s.rateFor(req.Machine), nil)
+}
+
+// CheckMachineShared is CheckMachine for one check of a batch: the
+// baseline operating point is found once per machine and baseline in memo.
+func (s *Service) CheckMachineShared(ctx context.Context, req CheckRequest, memo *CheckMemo) (CheckResult, error) {
+	return s.check(ctx, req, s.rateFor(req.Machine), memo)
 }
 
 // rateFor returns the check's view of RateMachine for machine m: a

@@ -231,3 +231,29 @@ func TestCheckMultiStage(t *testing.T) {
 	}
 	assert.True(t, found)
 }
+
+// A batch's memo finds the baseline once and changes no answer: checks run
+// concurrently through one memo equal the checks run alone.
+func TestCheckMemoSharesBaseline(t *testing.T) {
+	m, d := kestrelAirMachine(t)
+	svc := service.New()
+	memo := service.NewCheckMemo()
+	flows := []float64{2, 4.5, 5, 5.25, 9}
+	shared := make([]service.CheckResult, len(flows))
+	errs := make([]error, len(flows))
+	done := make(chan int)
+	for i, q := range flows {
+		go func() {
+			shared[i], errs[i] = svc.CheckMachineShared(context.Background(), service.CheckRequest{Machine: m, Duty: withMass(d, q)}, memo)
+			done <- i
+		}()
+	}
+	for range flows {
+		<-done
+	}
+	for i, q := range flows {
+		require.NoError(t, errs[i])
+		alone := check(t, m, withMass(d, q))
+		assert.Equal(t, alone, shared[i], "flow %g", q)
+	}
+}
