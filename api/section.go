@@ -128,65 +128,11 @@ func sectionResponseOf(res service.SectionResult) (SectionResponse, error) {
 		out.Warnings = append(out.Warnings, SectionWarningOut{Code: w.Code, Severity: w.Severity, Message: w.Message,
 			Value: w.Value, Limit: w.Limit, Margin: w.Margin, Unit: w.Unit, Basis: w.Basis, Stage: w.Stage})
 	}
-	out.Machine = sectionMachineSpec(res.Machine)
+	out.Machine = machineSpecOf(res.Machine)
 	if err := allFinite(out); err != nil {
 		return SectionResponse{}, err
 	}
 	return out, nil
-}
-
-// sectionMachineSpec renders a service.Machine in the API's shape (SI
-// numbers).
-func sectionMachineSpec(m service.Machine) MachineSpec {
-	q := func(v float64) *Quantity { return &Quantity{Value: v} }
-	qp := func(v *float64) *Quantity {
-		if v == nil {
-			return nil
-		}
-		return q(*v)
-	}
-	fp := func(v float64) *float64 { return &v }
-	out := MachineSpec{Name: m.Name, Arrangement: m.Arrangement, MechanicalEfficiency: m.MechanicalEfficiency}
-	for _, st := range m.Stages {
-		s := MachineStageSpec{TipDiameter: q(st.TipDiameter), ExitWidth: q(st.ExitWidth), BladeExitAngle: fp(st.BladeExitAngle),
-			SlipModel: st.SlipModel, SlipFactor: st.SlipFactor, ExitBlockage: fp(st.ExitBlockage), PowerInputFactor: fp(st.PowerInputFactor),
-			Construction: st.Construction,
-			Inlet: MachineInletSpec{Type: st.Inlet.Type, EyeTipDiameter: qp(st.Inlet.EyeTipDiameter), EyeHubDiameter: qp(st.Inlet.EyeHubDiameter),
-				Diameter: qp(st.Inlet.Diameter), Width: qp(st.Inlet.Width), PrewhirlAngle: st.Inlet.PrewhirlAngle},
-			Diffuser: &MachineDiffuserSpec{Type: st.Diffuser.Type, ThroatArea: st.Diffuser.ThroatArea}}
-		if st.BladeCount > 0 {
-			n := st.BladeCount
-			s.BladeCount = &n
-		}
-		dp := st.Design
-		s.Design = DesignPointSpec{Speed: q(dp.Speed), VolumeFlow: q(dp.VolumeFlow), MassFlow: fp(dp.MassFlow),
-			FlowCoefficient: fp(dp.FlowCoefficient), WorkCoefficient: fp(dp.WorkCoefficient), PolytropicEfficiency: fp(dp.PolytropicEfficiency),
-			TipMach: fp(dp.TipMach), PolytropicHead: fp(dp.PolytropicHead),
-			Suction:           SuctionSpec{Pressure: q(dp.SuctionPressure), Temperature: q(dp.SuctionTemperature)},
-			DischargePressure: q(dp.DischargePressure), Gas: gasSpecOf(dp.Gas)}
-		out.Stages = append(out.Stages, s)
-	}
-	for _, c := range m.Coolers {
-		out.Coolers = append(out.Coolers, MachineCoolerSpec{AfterStage: c.AfterStage, OutletTemperature: qp(c.OutletTemperature),
-			Approach: c.Approach, CoolantTemperature: qp(c.CoolantTemperature), PressureDrop: q(c.PressureDrop)})
-	}
-	if m.Driver != nil {
-		out.Driver = &MachineDriverSpec{Rating: qp(m.Driver.Rating)}
-	}
-	if m.SpeedRange != nil {
-		out.SpeedRange = &SpeedRangeSpec{Minimum: q(m.SpeedRange.Minimum), MaximumContinuous: q(m.SpeedRange.MaximumContinuous)}
-	}
-	if m.SurgeControl != nil {
-		out.SurgeControl = &SurgeControlSpec{Margin: m.SurgeControl.Margin}
-	}
-	if len(m.LimitOverrides) > 0 {
-		out.LimitOverrides = make(map[string]LevelOverrideSpec, len(m.LimitOverrides))
-		for k, o := range m.LimitOverrides {
-			w := o.Warning
-			out.LimitOverrides[k] = LevelOverrideSpec{Warning: &w, Limit: o.Limit}
-		}
-	}
-	return out
 }
 
 // gasSpecOf is the API form of a service gas input (the inverse of gasInputOf).

@@ -1,6 +1,8 @@
 package api_test
 
 import (
+	"bytes"
+	"encoding/json"
 	"net/http"
 	"net/http/httptest"
 	"os"
@@ -87,4 +89,54 @@ func FuzzPostSection(f *testing.F) {
 		w := fuzzExchange(t, h, k, http.MethodPost, "/v1/section/size", body)
 		checkAnswer(t, w.Code, w.Header().Get("Content-Type"), w.Body.Bytes(), stageErrors)
 	})
+}
+
+// sectionMapChart is the demo section's estimated map, shown in the README.
+const sectionMapChart = sectionsDir + "/kestrel-instrument-air-section.map.svg"
+
+// TestSectionMapChartCurrent maps the demo section's machine (from its
+// golden answer) at 98, 100, 103 and 105 % of the first stage's design
+// speed through /v1/machine/map and checks the committed chart is current
+// (go test ./api -run TestSectionMapChartCurrent -update rewrites it).
+// Every speed line of a three-stage section ends where its last stage
+// chokes, well before the first stage would (stage mismatch).
+func TestSectionMapChartCurrent(t *testing.T) {
+	var golden struct {
+		Machine json.RawMessage `json:"machine"`
+	}
+	b, err := os.ReadFile(filepath.Join(sectionsDir, "kestrel-instrument-air-section.golden.json"))
+	require.NoError(t, err)
+	require.NoError(t, json.Unmarshal(b, &golden))
+	var in struct {
+		Gas, Suction json.RawMessage
+	}
+	require.NoError(t, json.Unmarshal([]byte(sectionDemo(t)), &in))
+	body, err := json.Marshal(map[string]any{"machine": golden.Machine, "gas": in.Gas, "suction": in.Suction,
+		"speeds": []float64{23600, 24100, 24800, 25300}})
+	require.NoError(t, err)
+	h := newRouter(t)
+	w := postMap(h, string(body), "")
+	require.Equal(t, http.StatusOK, w.Code, w.Body.String())
+	var m struct {
+		SpeedLines []struct {
+			Points []struct {
+				PressureRatio float64 `json:"pressure_ratio"`
+			} `json:"points"`
+		} `json:"speed_lines"`
+	}
+	require.NoError(t, json.Unmarshal(w.Body.Bytes(), &m))
+	require.Len(t, m.SpeedLines, 4)
+	for _, l := range m.SpeedLines {
+		first, last := l.Points[0].PressureRatio, l.Points[len(l.Points)-1].PressureRatio
+		assert.Less(t, last, 0.5*first, "the line falls steeply into the last stage's choke")
+	}
+	w = postMap(h, string(body), "image/svg+xml")
+	require.Equal(t, http.StatusOK, w.Code, w.Body.String())
+	svg := w.Body.Bytes()
+	if *update {
+		require.NoError(t, os.WriteFile(sectionMapChart, svg, 0o644))
+	}
+	committed, err := os.ReadFile(sectionMapChart)
+	require.NoError(t, err, "run go test ./api -run TestSectionMapChartCurrent -update")
+	assert.True(t, bytes.Equal(committed, svg), "%s is out of date: run go test ./api -run TestSectionMapChartCurrent -update", sectionMapChart)
 }

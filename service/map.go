@@ -8,6 +8,7 @@ import (
 	"strconv"
 
 	"stagewright/physics/gas"
+	"stagewright/physics/offdesign"
 )
 
 // Map defaults.
@@ -247,16 +248,57 @@ func (s *Service) mapLine(ctx context.Context, pm *preparedMachine, op operating
 			mc = math.Min(mc, r.OperatingPoint.ChokeFlow*rho)
 		}
 	}
+	if len(pm.stages) > 1 && ms < mc {
+		// Far from the middle of the range a later stage may choke well
+		// before the estimate above (stage mismatch): the line ends at the
+		// largest flow the stack passes, found by bisection.
+		top := ms + (mc-ms)*mapChokeFraction
+		o := op
+		o.mdot = top
+		if _, err := s.stack(ctx, pm, o, n, false); err != nil {
+			lo, hi := ms, top
+			o.mdot = ms
+			if _, err := s.stack(ctx, pm, o, n, false); err != nil {
+				hi = ms // choked already at the surge flow: no stable range
+			}
+			for hi-lo > 1e-6*hi {
+				if err := ctx.Err(); err != nil {
+					return SpeedLine{}, 0, 0, err
+				}
+				o.mdot = 0.5 * (lo + hi)
+				if _, err := s.stack(ctx, pm, o, n, false); err != nil {
+					hi = o.mdot
+				} else {
+					lo = o.mdot
+				}
+			}
+			mc = ms + (lo-ms)/mapChokeFraction
+		}
+	}
 	if !(ms < mc) {
 		return SpeedLine{}, 0, 0, fieldErr("flow", reason("speed", fmt.Sprintf("at %.0f rev/min the estimated surge flow is not below the estimated choke flow: the machine has no stable range at this speed", n), n))
 	}
 	out := SpeedLine{Speed: n}
 	p1 := float64(op.suction.Pressure)
+	var prev *offdesign.Point
 	for i := range points {
 		if err := ctx.Err(); err != nil {
 			return SpeedLine{}, 0, 0, err
 		}
 		mdot := ms + (mc-ms)*mapChokeFraction*float64(i)/float64(points-1)
+		if len(pm.stages) == 1 {
+			// One stage: walk the line from its neighbour (no stacking).
+			p, err := line1.AtFrom(mdot, prev)
+			if err != nil {
+				return SpeedLine{}, 0, 0, fieldErr("flow", err)
+			}
+			prev = &p
+			c := p.Compression
+			out.Points = append(out.Points, MapPoint{ActualVolumeFlow: mdot / rho, MassFlow: mdot, Head: float64(c.PolytropicHead),
+				PressureRatio: float64(c.Discharge.Pressure) / p1, Efficiency: float64(c.PolytropicHead) / float64(c.Work),
+				Power: mdot * float64(c.Work) / pm.mechEff})
+			continue
+		}
 		o := op
 		o.mdot = mdot
 		st, err := s.stack(ctx, pm, o, n, false)

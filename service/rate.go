@@ -271,6 +271,10 @@ func (s *Service) stack(ctx context.Context, pm *preparedMachine, op operating, 
 		p, err := line.At(mdot)
 		if err != nil {
 			if errors.Is(err, offdesign.ErrPastChoke) {
+				if !margins { // a search step: the choke flow itself is not needed
+					mc, passage := line.MaxFlow()
+					return out, s.chokeProblemAt(mc, passage, in, mdot, k, len(pm.stages))
+				}
 				return out, s.chokeProblem(line, in, mdot, k, len(pm.stages))
 			}
 			return out, fieldErr("flow", fmt.Errorf("stage %d: %w", k+1, err))
@@ -379,12 +383,12 @@ func fillRating(r *Rating, pm *preparedMachine, st stacked) {
 	r.PolytropicEfficiency, r.IsentropicEfficiency = hp/w, hs/w
 	r.DischargePressure, r.DischargeTemperature = float64(st.discharge.Pressure), float64(st.discharge.Temperature)
 	shaft := gp / pm.mechEff
-	// The margin to 12 significant digits: the default rating is exactly
+	// The margin to 9 significant digits: the default rating is exactly
 	// 1.10 × the design shaft power, which the design point must not grade
-	// as below 1.10 by a rounding error.
+	// as below 1.10 by the solver's last digits.
 	margin := pm.driverRating / shaft
 	if e := math.Floor(math.Log10(margin)); physics.Finite(e) {
-		scale := math.Pow(10, 11-e)
+		scale := math.Pow(10, 8-e)
 		margin = math.Round(margin*scale) / scale
 	}
 	r.Power = Power{Gas: gp, Shaft: shaft, MechanicalEfficiency: pm.mechEff, DriverRating: pm.driverRating, DriverMargin: margin}
@@ -607,7 +611,7 @@ func (s *Service) speedForPressure(ctx context.Context, pm *preparedMachine, op 
 	}
 	side := 0
 	x := 0.5 * (lo + hi)
-	for range 200 {
+	for range 80 {
 		if okLo {
 			x = hi - fhi*(hi-lo)/(fhi-flo)
 			if !(x > lo && x < hi) {

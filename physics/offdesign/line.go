@@ -195,6 +195,9 @@ type Line struct {
 	// zero (ChokeZeroWork); chokePassage names which.
 	chokeFlow    float64
 	chokePassage string
+	// sonicFlux and sonicSpeed are the suction state's sonic flux and
+	// velocity (for the eye continuity at every point).
+	sonicFlux, sonicSpeed float64
 }
 
 // Passages that choke.
@@ -329,6 +332,7 @@ func (l *Line) inducerChoke() error {
 	if err != nil {
 		return fmt.Errorf("eye choke: %w", err)
 	}
+	l.sonicFlux, l.sonicSpeed = fs, float64(cs)
 	eyeFlow := fs * cosA * l.a1
 	throat := l.a1 * math.Cos(rad(in.BladeAngle))
 	// Relative frame: h0,rel depends on cθ1 = cm1 tan α1, itself on the
@@ -449,11 +453,7 @@ func (l *Line) AtFrom(mdot float64, near *Point) (Point, error) {
 	// Inlet: continuity at the static density in the eye (subsonic branch).
 	in := s.Inlet
 	cosA, tanA := math.Cos(rad(in.PrewhirlAngle)), math.Tan(rad(in.PrewhirlAngle))
-	fs, cs, err := SonicFlux(m, st)
-	if err != nil {
-		return Point{}, err
-	}
-	ist, c1, err := flowAt(m, st, mdot/(l.a1*cosA), float64(cs), fs)
+	ist, c1, err := flowAt(m, st, mdot/(l.a1*cosA), l.sonicSpeed, l.sonicFlux)
 	if err != nil {
 		return Point{}, pastChoke(mdot, l.chokeFlow, l.passageName(ChokeEye))
 	}
@@ -473,7 +473,7 @@ func (l *Line) AtFrom(mdot float64, near *Point) (Point, error) {
 	tanB := math.Tan(rad(s.BladeExitAngle))
 	psi, sigma := s.PowerInputFactor, s.SlipFactor
 	eff := path.Efficiency{Basis: path.Polytropic, Value: eta}
-	etaS := eta // first guess of the stage isentropic efficiency
+	etaS, _ := l.isentropicGuess(eta, p.FlowCoefficient) // first guess of the stage isentropic efficiency
 	cr2 := 0.25 * l.u2 * p.FlowCoefficient / s.Design.FlowCoefficient
 	if near != nil && near.TipSpeed > 0 && near.FlowCoefficient > 0 {
 		cr2 = near.ExitFlowCoefficient * l.u2 * p.FlowCoefficient / near.FlowCoefficient
@@ -481,18 +481,26 @@ func (l *Line) AtFrom(mdot float64, near *Point) (Point, error) {
 	}
 	var ex exitState
 	var comp path.Result
+	// A first guess of the discharge pressure: the neighbour's, then the
+	// previous pass's (the perfect-gas guess from below slows Newton,
+	// which converges from the isothermal bound above).
+	var near2 physics.Pascal
+	if near != nil {
+		near2 = near.Compression.Discharge.Pressure
+	}
 	for outer := 0; ; outer++ {
 		ex, cr2, err = l.exitFixedPoint(mdot, cr2, etaS, u1, ct1, tanB, psi, sigma)
 		if err != nil {
 			return Point{}, err
 		}
-		comp, err = path.CompressionForWork(m, st, physics.JoulePerKg(ex.w), eff, s.Method)
+		comp, err = path.CompressionForWorkNear(m, st, physics.JoulePerKg(ex.w), eff, s.Method, near2)
 		if err != nil {
 			return Point{}, fmt.Errorf("compression at %.6g J/kg: %w", ex.w, err)
 		}
-		if math.Abs(comp.IsentropicEfficiency-etaS) <= 1e-12 || outer >= 20 {
+		if math.Abs(comp.IsentropicEfficiency-etaS) <= etaSTolerance || outer >= 8 {
 			break
 		}
+		near2 = comp.Discharge.Pressure
 		etaS = comp.IsentropicEfficiency
 	}
 	p.Compression = comp
@@ -511,6 +519,39 @@ func (l *Line) AtFrom(mdot float64, near *Point) (Point, error) {
 		return Point{}, &physics.DomainError{Name: "flow", Value: mdot, Want: "a finite operating point"}
 	}
 	return p, nil
+}
+
+// etaSTolerance is the change of the stage isentropic efficiency (which
+// sets the impeller exit pressure through the loss share) at which the
+// exit iteration stops: its effect on the work is some 1e-3 of it, far
+// below the 1e-9 of the results.
+const etaSTolerance = 1e-9
+
+// isentropicGuess is a first guess of the stage isentropic efficiency and
+// pressure ratio for the polytropic efficiency eta at flow coefficient
+// phi (0 for the ratio when no guess is made): the perfect-gas
+// conversion at the suction state's isentropic exponent and the pressure
+// ratio of the Euler work of the design exit flow coefficient scaled with
+// phi (Dixon & Hall 2014, ch. 2, small-stage efficiency).
+func (l *Line) isentropicGuess(eta, phi float64) (etaS, pr float64) {
+	st, s := l.suction, l.stage
+	k := st.IsentropicExponent
+	if !(k > 1) || !(k < 2) {
+		return eta, 0
+	}
+	cr2 := 0.25 * l.u2 * phi / s.Design.FlowCoefficient
+	w := s.PowerInputFactor * l.u2 * (s.SlipFactor*l.u2 - cr2*math.Tan(rad(s.BladeExitAngle)))
+	cpT := float64(st.Pressure) / float64(st.Density) * k / (k - 1)
+	if !(w > 0) || !(cpT > 0) {
+		return eta, 0
+	}
+	tr := 1 + w/cpT
+	pr = math.Pow(tr, eta*k/(k-1))
+	es, err := path.PerfectGasIsentropicEfficiency(eta, pr, k)
+	if err != nil || !(es > 0 && es <= 1) || !physics.Finite(pr) {
+		return eta, 0
+	}
+	return es, pr
 }
 
 type exitState struct {
@@ -547,7 +588,7 @@ func (l *Line) exitFixedPoint(mdot, cr2, etaS, u1, ct1, tanB, psi, sigma float64
 	var x0, r0 float64
 	have := false
 	x := cr2
-	for range 60 {
+	for range 40 {
 		ex, next, err := eval(x)
 		if err != nil {
 			return ex, x, err
@@ -609,7 +650,7 @@ func (l *Line) Surge() (float64, error) {
 			return 0, fmt.Errorf("surge estimate: %w", err)
 		}
 		next := float64(p.ExitStatic.Density) * crc * l.aExit
-		if math.Abs(next-mdot) <= 1e-10*mdot {
+		if math.Abs(next-mdot) <= 1e-9*mdot {
 			return next, nil
 		}
 		mdot, prev = next, &p
@@ -656,7 +697,7 @@ func (l *Line) Choke() (float64, string, error) {
 	}
 	side := 0
 	x := 0.5 * (loM + hiM)
-	for range 100 {
+	for range 60 {
 		if okHi {
 			x = hiM - hHi*(hiM-loM)/(hHi-hLo)
 			if !(x > loM && x < hiM) {

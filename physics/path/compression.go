@@ -147,6 +147,15 @@ func Compression(m gas.Model, suction gas.State, p2 physics.Pascal, eff Efficien
 // Dixon & Hall (2014), ch. 2. Valid for finite w > 0 and the ranges of
 // Compression.
 func CompressionForWork(m gas.Model, suction gas.State, w physics.JoulePerKg, eff Efficiency, method Method) (Result, error) {
+	return CompressionForWorkNear(m, suction, w, eff, method, 0)
+}
+
+// CompressionForWorkNear is CompressionForWork with a first guess of the
+// discharge pressure (near > suction pressure; 0: none), for callers that
+// solve many neighbouring compressions (a speed line, an iteration): the
+// Newton steps in ln p2 then start next to the root. Same result to the
+// solver tolerance; same sources and validity.
+func CompressionForWorkNear(m gas.Model, suction gas.State, w physics.JoulePerKg, eff Efficiency, method Method, near physics.Pascal) (Result, error) {
 	if err := checkModel(m, suction); err != nil {
 		return Result{}, err
 	}
@@ -170,7 +179,7 @@ func CompressionForWork(m gas.Model, suction gas.State, w physics.JoulePerKg, ef
 		p2 = float64(st.Pressure)
 	} else {
 		var err error
-		if p2, err = polytropicPressure(m, suction, float64(w), eff.Value, method); err != nil {
+		if p2, err = polytropicPressure(m, suction, float64(w), eff.Value, method, float64(near)); err != nil {
 			return Result{}, err
 		}
 	}
@@ -182,11 +191,14 @@ func CompressionForWork(m gas.Model, suction gas.State, w physics.JoulePerKg, ef
 
 // polytropicPressure finds p2 with h2(p2) − h1 = w along the polytropic
 // path of the method, by Newton steps in u = ln(p2/p1).
-func polytropicPressure(m gas.Model, suction gas.State, w, etaP float64, method Method) (float64, error) {
+func polytropicPressure(m gas.Model, suction gas.State, w, etaP float64, method Method, near float64) (float64, error) {
 	p1 := float64(suction.Pressure)
 	pv1 := p1 / float64(suction.Density)
 	// Isothermal perfect-gas estimate, an upper bound of the ratio: Hp = pv ln pr.
 	u := math.Min(etaP*w/pv1, 20)
+	if near > p1 && math.Log(near/p1) < u {
+		u = math.Log(near / p1)
+	}
 	for range 40 {
 		p2 := physics.Pascal(p1 * math.Exp(u))
 		dis, err := dischargeAt(m, suction, p2, etaP, method)

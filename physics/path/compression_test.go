@@ -168,6 +168,13 @@ func TestCompressionForWork(t *testing.T) {
 					require.NoError(t, err)
 					assert.InEpsilon(t, float64(mc.p2), float64(inv.Discharge.Pressure), 1e-8)
 					assert.InEpsilon(t, float64(fwd.Work), float64(inv.Work), 1e-8)
+					// a first guess of the pressure, above or below the root, or
+					// useless (at or below suction): the same compression
+					for _, near := range []float64{0.9, 1.1, 0} {
+						g, err := path.CompressionForWorkNear(mc.m, s1, fwd.Work, eff, method, physics.Pascal(near*float64(mc.p2)))
+						require.NoError(t, err)
+						assert.InEpsilon(t, float64(mc.p2), float64(g.Discharge.Pressure), 1e-8, "near %g", near)
+					}
 				})
 			}
 		}
