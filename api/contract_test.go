@@ -372,6 +372,7 @@ func TestContractSeesEveryRoute(t *testing.T) {
 		"POST /v1/stage/size/compact", "POST /v1/stage/size/batch/compact", "POST /v1/gas/properties", "GET /v1/gas/components",
 		"POST /v1/machine/rate", "POST /v1/machine/rate/batch", "POST /v1/machine/map",
 		"POST /v1/section/size",
+		"POST /v1/machine/check", "POST /v1/machine/check/batch",
 	}, ops)
 	err := exchange(k, fakeServer(200, "text/plain", "ok"), http.MethodGet, "/healthz", "")
 	require.ErrorContains(t, err, "response 200")

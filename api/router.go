@@ -19,6 +19,7 @@ type Services interface {
 	SectionSizer
 	GasPropertyService
 	MachineService
+	MachineChecker
 }
 
 // Options configure the router. The zero value of every field but Spec
@@ -128,7 +129,8 @@ func NewRouter(svc Services, opts Options) (*gin.Engine, error) {
 	if err != nil {
 		return nil, err
 	}
-	dec := newRequestDecoder(StageRequest{}, BatchRequest{}, PropertiesRequest{}, SectionRequest{}, RateRequest{}, RateBatchRequest{}, MapRequest{})
+	dec := newRequestDecoder(StageRequest{}, BatchRequest{}, PropertiesRequest{}, SectionRequest{}, RateRequest{}, RateBatchRequest{}, MapRequest{},
+		MachineCheckRequest{}, MachineCheckBatchRequest{})
 	st := stageHandler{svc: svc, decoder: dec, enc: enc, log: log}
 	v1.POST("/stage/size", st.size)
 	v1.POST("/stage/size/batch", st.sizeBatch)
@@ -137,6 +139,9 @@ func NewRouter(svc Services, opts Options) (*gin.Engine, error) {
 	gh := gasHandler{svc: svc, decoder: dec, enc: enc, log: log}
 	v1.POST("/gas/properties", gh.properties)
 	v1.GET("/gas/components", gh.components)
+	ch := checkHandler{svc: svc, decoder: dec, log: log}
+	v1.POST("/machine/check", ch.check)
+	v1.POST("/machine/check/batch", ch.checkBatch)
 	v1.POST("/section/size", sectionHandler{svc: svc, decoder: dec, log: log}.size)
 	mh := machineHandler{svc: svc, decoder: dec, log: log}
 	v1.POST("/machine/rate", mh.rate)

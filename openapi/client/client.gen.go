@@ -316,6 +316,30 @@ func (e ApiLimitOutSeverity) Valid() bool {
 	}
 }
 
+// Defines values for ApiMachineCheckResponseVerdict.
+const (
+	DoesNotFit         ApiMachineCheckResponseVerdict = "does-not-fit"
+	Fits               ApiMachineCheckResponseVerdict = "fits"
+	FitsWithRecycle    ApiMachineCheckResponseVerdict = "fits-with-recycle"
+	FitsWithThrottling ApiMachineCheckResponseVerdict = "fits-with-throttling"
+)
+
+// Valid indicates whether the value is a known member of the ApiMachineCheckResponseVerdict enum.
+func (e ApiMachineCheckResponseVerdict) Valid() bool {
+	switch e {
+	case DoesNotFit:
+		return true
+	case Fits:
+		return true
+	case FitsWithRecycle:
+		return true
+	case FitsWithThrottling:
+		return true
+	default:
+		return false
+	}
+}
+
 // Defines values for ApiMachineDiffuserSpecType.
 const (
 	ApiMachineDiffuserSpecTypeVaned    ApiMachineDiffuserSpecType = "vaned"
@@ -430,6 +454,30 @@ func (e ApiMachineStageSpecSlipModel) Valid() bool {
 	case ApiMachineStageSpecSlipModelStodola:
 		return true
 	case ApiMachineStageSpecSlipModelWiesner:
+		return true
+	default:
+		return false
+	}
+}
+
+// Defines values for ApiMarginChangeOutSeverity.
+const (
+	ApiMarginChangeOutSeverityLimit   ApiMarginChangeOutSeverity = "limit"
+	ApiMarginChangeOutSeverityNotice  ApiMarginChangeOutSeverity = "notice"
+	ApiMarginChangeOutSeverityOk      ApiMarginChangeOutSeverity = "ok"
+	ApiMarginChangeOutSeverityWarning ApiMarginChangeOutSeverity = "warning"
+)
+
+// Valid indicates whether the value is a known member of the ApiMarginChangeOutSeverity enum.
+func (e ApiMarginChangeOutSeverity) Valid() bool {
+	switch e {
+	case ApiMarginChangeOutSeverityLimit:
+		return true
+	case ApiMarginChangeOutSeverityNotice:
+		return true
+	case ApiMarginChangeOutSeverityOk:
+		return true
+	case ApiMarginChangeOutSeverityWarning:
 		return true
 	default:
 		return false
@@ -661,6 +709,24 @@ func (e ApiSectionWarningOutSeverity) Valid() bool {
 	}
 }
 
+// Defines values for ApiSimilarityOutKind.
+const (
+	Difference ApiSimilarityOutKind = "difference"
+	Ratio      ApiSimilarityOutKind = "ratio"
+)
+
+// Valid indicates whether the value is a known member of the ApiSimilarityOutKind enum.
+func (e ApiSimilarityOutKind) Valid() bool {
+	switch e {
+	case Difference:
+		return true
+	case Ratio:
+		return true
+	default:
+		return false
+	}
+}
+
 // Defines values for ApiSpeedChoiceOutBasis.
 const (
 	ApiSpeedChoiceOutBasisFlowCoefficient ApiSpeedChoiceOutBasis = "flow-coefficient"
@@ -754,6 +820,19 @@ func (e ApiWarningOutSeverity) Valid() bool {
 	}
 }
 
+// ApiAlternativeRecycleOut defines model for api.AlternativeRecycleOut.
+type ApiAlternativeRecycleOut struct {
+	// Mass Mass is the recycled mass flow, kg/s.
+	//
+	// Example: 0.8
+	Mass float64 `json:"mass"`
+
+	// ShaftPower ShaftPower with it, W.
+	//
+	// Example: 450000
+	ShaftPower float64 `json:"shaft_power"`
+}
+
 // ApiBatchItem defines model for api.BatchItem.
 type ApiBatchItem struct {
 	// Index Index is the duty's position in the request, from 0.
@@ -810,6 +889,229 @@ type ApiBinaryInteractionSpec struct {
 	//
 	// Example: ["CH4","CO2"]
 	Pair []string `json:"pair"`
+}
+
+// ApiChangeOut defines model for api.ChangeOut.
+type ApiChangeOut struct {
+	After  float64 `json:"after"`
+	Before float64 `json:"before"`
+
+	// Change Change is (after − before)/|before| (after − before when before is 0).
+	//
+	// Example: 0.04
+	Change float64 `json:"change"`
+
+	// Quantity Quantity names it ("speed", "power.shaft", "suction.pressure", "gas.composition.methane", ...).
+	//
+	// Example: speed
+	Quantity string `json:"quantity"`
+
+	// TowardLimit TowardLimit is how much of the margin to its limit the move used up (margin before − margin after); absent for a quantity without a limit.
+	//
+	// Example: 0.04
+	TowardLimit *float64 `json:"toward_limit,omitempty"`
+
+	// Unit Example: rev/min
+	Unit string `json:"unit"`
+}
+
+// ApiCheckDutySpec defines model for api.CheckDutySpec.
+type ApiCheckDutySpec struct {
+	// DischargePressure DischargePressure is the discharge total pressure the process needs, Pa absolute (or a string with a unit).
+	DischargePressure ApiCheckDutySpec_DischargePressure `json:"discharge_pressure"`
+	Flow              ApiFlowSpec                        `json:"flow"`
+	Gas               ApiGasSpec                         `json:"gas"`
+	Suction           ApiSuctionSpec                     `json:"suction"`
+}
+
+// ApiCheckDutySpecDischargePressure0 DischargePressure is the discharge total pressure the process needs, Pa absolute (or a string with a unit).
+//
+// Example: 420000
+type ApiCheckDutySpecDischargePressure0 = float64
+
+// ApiCheckDutySpecDischargePressure1 a pressure with its unit, e.g. "14.7 psia", "1.2 bara", "0.3 barg"
+type ApiCheckDutySpecDischargePressure1 = string
+
+// ApiCheckDutySpec_DischargePressure DischargePressure is the discharge total pressure the process needs, Pa absolute (or a string with a unit).
+type ApiCheckDutySpec_DischargePressure struct {
+	union json.RawMessage
+}
+
+// ApiCheckEfficiencyOut defines model for api.CheckEfficiencyOut.
+type ApiCheckEfficiencyOut struct {
+	// Isentropic Example: 0.78
+	Isentropic float64 `json:"isentropic"`
+
+	// Polytropic Example: 0.8
+	Polytropic float64 `json:"polytropic"`
+}
+
+// ApiCheckFlowOut defines model for api.CheckFlowOut.
+type ApiCheckFlowOut struct {
+	// ActualVolume ActualVolume is the volume flow at the suction state, m3/s.
+	//
+	// Example: 1.9
+	ActualVolume float64 `json:"actual_volume"`
+
+	// Mass Mass flow, kg/s.
+	//
+	// Example: 4.1
+	Mass float64 `json:"mass"`
+}
+
+// ApiCheckPointOut defines model for api.CheckPointOut.
+type ApiCheckPointOut struct {
+	// Choke Choke is the estimated choke flow at this speed.
+	Choke ApiChokeOut `json:"choke"`
+
+	// DesignFlowRatio DesignFlowRatio is the first stage's flow over its design flow at the same speed ratio.
+	//
+	// Example: 1
+	DesignFlowRatio float64 `json:"design_flow_ratio"`
+
+	// Discharge Discharge is the machine's discharge total state.
+	Discharge ApiCheckStateOut `json:"discharge"`
+
+	// Efficiency Efficiency is the machine's total-to-total efficiency (summed heads over summed work).
+	Efficiency ApiCheckEfficiencyOut `json:"efficiency"`
+
+	// Flow Flow is what the compressor moves (the duty's flow plus any recycle).
+	Flow ApiCheckFlowOut `json:"flow"`
+
+	// FlowCoefficient FlowCoefficient is the first stage's φ = Q01/(U2 π D2²/4).
+	//
+	// Example: 0.08
+	FlowCoefficient float64 `json:"flow_coefficient"`
+
+	// Head Head is the summed head of the stages, J/kg.
+	Head ApiHeadOut `json:"head"`
+
+	// Power Power is gas and shaft power, W, with any recycle.
+	Power ApiCheckPowerOut `json:"power"`
+
+	// Speed Speed is the first stage's speed, rev/min.
+	//
+	// Example: 11500
+	Speed float64 `json:"speed"`
+
+	// Stages Stages are the stages at this point, in flow order.
+	Stages []ApiCheckStageOut `json:"stages"`
+
+	// Suction Suction is the compressor's suction total state (after any throttle valve).
+	Suction ApiCheckStateOut `json:"suction"`
+
+	// Surge Surge is the estimated surge line at this speed.
+	Surge ApiSurgeOut `json:"surge"`
+}
+
+// ApiCheckPowerOut defines model for api.CheckPowerOut.
+type ApiCheckPowerOut struct {
+	// Gas Gas is the mass flow × work summed over the stages, W.
+	//
+	// Example: 480000
+	Gas float64 `json:"gas"`
+
+	// Shaft Shaft is gas power over the mechanical efficiency, W.
+	//
+	// Example: 490000
+	Shaft float64 `json:"shaft"`
+}
+
+// ApiCheckReasonOut defines model for api.CheckReasonOut.
+type ApiCheckReasonOut struct {
+	// Code Code is "speed-above-maximum", "speed-below-minimum", "choke",
+	// "driver-overload", "surge" or a limit rule's code (e.g.
+	// "discharge-temperature", "tip-speed").
+	//
+	// Example: speed-above-maximum
+	Code string `json:"code"`
+
+	// Limit Limit is the level it passes, in unit.
+	Limit   float64 `json:"limit"`
+	Message string  `json:"message"`
+
+	// Unit Example: rev/min
+	Unit string `json:"unit"`
+
+	// Value Value is what the duty needs or reaches, in unit.
+	Value float64 `json:"value"`
+}
+
+// ApiCheckSpeedRangeOut defines model for api.CheckSpeedRangeOut.
+type ApiCheckSpeedRangeOut struct {
+	// MaximumContinuous Example: 12075
+	MaximumContinuous float64 `json:"maximum_continuous"`
+
+	// Minimum Example: 8050
+	Minimum float64 `json:"minimum"`
+}
+
+// ApiCheckStageOut defines model for api.CheckStageOut.
+type ApiCheckStageOut struct {
+	ChokeMargin float64 `json:"choke_margin"`
+
+	// DesignFlowRatio DesignFlowRatio is the stage's flow over its design flow at the same speed ratio.
+	DesignFlowRatio float64 `json:"design_flow_ratio"`
+
+	// Discharge Discharge is the stage's discharge total state (before any cooler).
+	Discharge ApiCheckStateOut `json:"discharge"`
+
+	// FlowCoefficient FlowCoefficient of the stage.
+	FlowCoefficient float64 `json:"flow_coefficient"`
+
+	// PolytropicEfficiency PolytropicEfficiency of the stage.
+	PolytropicEfficiency float64 `json:"polytropic_efficiency"`
+
+	// PolytropicHead PolytropicHead of the stage, J/kg.
+	PolytropicHead float64 `json:"polytropic_head"`
+
+	// Speed Speed of this stage, rev/min.
+	Speed float64 `json:"speed"`
+
+	// Stage Stage number, from 1.
+	//
+	// Example: 1
+	Stage int `json:"stage"`
+
+	// Suction Suction is the stage's suction total state.
+	Suction ApiCheckStateOut `json:"suction"`
+
+	// SurgeMargin SurgeMargin is the stage's Q/Q_surge − 1, ChokeMargin its 1 − Q/Q_choke (estimates).
+	SurgeMargin float64 `json:"surge_margin"`
+
+	// VolumeFlow VolumeFlow is the actual volume flow entering the stage, m3/s.
+	VolumeFlow float64 `json:"volume_flow"`
+}
+
+// ApiCheckStateOut defines model for api.CheckStateOut.
+type ApiCheckStateOut struct {
+	// Pressure Pressure, Pa absolute.
+	//
+	// Example: 420000
+	Pressure float64 `json:"pressure"`
+
+	// Temperature Temperature, K.
+	//
+	// Example: 420
+	Temperature float64 `json:"temperature"`
+}
+
+// ApiChokeOut defines model for api.ChokeOut.
+type ApiChokeOut struct {
+	// Flow Flow is the machine inlet volume flow at which the first stage to choke does so, m3/s (0: not estimated).
+	//
+	// Example: 2.6
+	Flow float64 `json:"flow"`
+
+	// Margin Margin is 1 − Q/Q_choke.
+	//
+	// Example: 0.25
+	Margin float64 `json:"margin"`
+
+	// Stage Stage is the stage (1-based) that chokes first (0: not estimated).
+	//
+	// Example: 1
+	Stage int `json:"stage"`
 }
 
 // ApiCoefficientsOut defines model for api.CoefficientsOut.
@@ -1725,6 +2027,124 @@ type ApiLimitOut struct {
 // Example: ok
 type ApiLimitOutSeverity string
 
+// ApiMachineCheckBatchItem defines model for api.MachineCheckBatchItem.
+type ApiMachineCheckBatchItem struct {
+	// Index Index is the check's position in the request, from 0.
+	Index   int                      `json:"index"`
+	Problem *ApiProblem              `json:"problem,omitempty"`
+	Result  *ApiMachineCheckResponse `json:"result,omitempty"`
+
+	// Status Status is the HTTP status the check would have had on its own.
+	//
+	// Example: 200
+	Status int `json:"status"`
+}
+
+// ApiMachineCheckBatchRequest defines model for api.MachineCheckBatchRequest.
+type ApiMachineCheckBatchRequest struct {
+	// Checks Checks are run independently; each follows the MachineCheckRequest schema.
+	Checks []ApiMachineCheckRequest `json:"checks"`
+}
+
+// ApiMachineCheckBatchResponse defines model for api.MachineCheckBatchResponse.
+type ApiMachineCheckBatchResponse struct {
+	Failed  int                        `json:"failed"`
+	Results []ApiMachineCheckBatchItem `json:"results"`
+
+	// Succeeded Succeeded and Failed count the results by outcome.
+	Succeeded int `json:"succeeded"`
+}
+
+// ApiMachineCheckRequest defines model for api.MachineCheckRequest.
+type ApiMachineCheckRequest struct {
+	// Baseline Baseline is the duty to compare with; default the machine's own
+	// design duty (first stage's design gas, suction and volume flow, last
+	// stage's design discharge pressure).
+	Baseline *ApiCheckDutySpec `json:"baseline,omitempty"`
+
+	// Duty Duty is the new duty the machine is checked against.
+	Duty ApiCheckDutySpec `json:"duty"`
+
+	// Machine Machine is the installed machine, unchanged from a design answer.
+	Machine ApiMachineSpec `json:"machine"`
+}
+
+// ApiMachineCheckResponse defines model for api.MachineCheckResponse.
+type ApiMachineCheckResponse struct {
+	// BaselinePoint BaselinePoint is the machine at the baseline duty.
+	BaselinePoint ApiCheckPointOut `json:"baseline_point"`
+
+	// Cautions Cautions are short sentences: what the verdict is and is not, and the
+	// protections the machine needs; they defer to the manufacturer.
+	Cautions []string `json:"cautions"`
+
+	// Changes Changes are the inputs that changed and the results that moved, those
+	// with a limit first by how much of their margin the move used up.
+	Changes []ApiChangeOut `json:"changes"`
+
+	// DriverRating DriverRating is the driver rating as used (given or default), W.
+	//
+	// Example: 750000
+	DriverRating float64 `json:"driver_rating"`
+
+	// Margins Margins are the operating margins (surge, choke, speed to maximum
+	// continuous and to minimum, power to driver rating) and every limit
+	// rule, before (baseline) and after (new duty).
+	Margins []ApiMarginChangeOut `json:"margins"`
+
+	// OperatingPoint OperatingPoint is the machine at the new duty, with any recycle or throttling.
+	OperatingPoint ApiCheckPointOut `json:"operating_point"`
+	Provenance     ApiProvenanceOut `json:"provenance"`
+
+	// Reasons Reasons are the causes of a does-not-fit verdict (empty otherwise).
+	Reasons []ApiCheckReasonOut `json:"reasons"`
+
+	// Recycle Recycle is the anti-surge recycle of a fits-with-recycle duty.
+	Recycle *ApiRecycleOut `json:"recycle,omitempty"`
+
+	// Similarity Similarity compares the new duty with the baseline by the ASME PTC 10
+	// similarity quantities; a quantity outside its band means the
+	// machine's known performance is being extrapolated.
+	Similarity []ApiSimilarityOut `json:"similarity"`
+
+	// SpeedRange SpeedRange is the machine's speed range as used (given or default), rev/min.
+	SpeedRange ApiCheckSpeedRangeOut `json:"speed_range"`
+
+	// SurgeControlMargin SurgeControlMargin is the control line's distance from surge as used,
+	// a fraction of the surge flow.
+	//
+	// Example: 0.1
+	SurgeControlMargin float64 `json:"surge_control_margin"`
+
+	// Throttling Throttling is the suction throttling of a fits-with-throttling duty.
+	Throttling *ApiThrottlingOut `json:"throttling,omitempty"`
+
+	// Verdict Verdict is "fits" (a speed in the range, right of the surge control
+	// line, short of choke with margin, inside the driver rating and every
+	// limit rule's limit), "fits-with-recycle" (left of the control line:
+	// anti-surge recycle raises the compressor's flow to it; see recycle),
+	// "fits-with-throttling" (even at the minimum speed the machine makes
+	// more than the discharge pressure; see throttling) or "does-not-fit"
+	// (see reasons).
+	//
+	// Example: fits
+	Verdict ApiMachineCheckResponseVerdict `json:"verdict"`
+
+	// Warnings Warnings are the new duty's warnings (limits, validity of the physics).
+	Warnings []ApiWarningOut `json:"warnings"`
+}
+
+// ApiMachineCheckResponseVerdict Verdict is "fits" (a speed in the range, right of the surge control
+// line, short of choke with margin, inside the driver rating and every
+// limit rule's limit), "fits-with-recycle" (left of the control line:
+// anti-surge recycle raises the compressor's flow to it; see recycle),
+// "fits-with-throttling" (even at the minimum speed the machine makes
+// more than the discharge pressure; see throttling) or "does-not-fit"
+// (see reasons).
+//
+// Example: fits
+type ApiMachineCheckResponseVerdict string
+
 // ApiMachineCoolerSpec defines model for api.MachineCoolerSpec.
 type ApiMachineCoolerSpec struct {
 	// AfterStage AfterStage is the stage (1-based) the cooler follows.
@@ -2203,6 +2623,50 @@ type ApiMapStateOut struct {
 	// Temperature Example: 300
 	Temperature float64 `json:"temperature"`
 }
+
+// ApiMarginChangeOut defines model for api.MarginChangeOut.
+type ApiMarginChangeOut struct {
+	After float64 `json:"after"`
+
+	// Before Before and After are the quantity's values at the baseline and the new duty, in unit.
+	Before float64 `json:"before"`
+
+	// Code Code is "surge", "choke", "speed-to-maximum-continuous",
+	// "speed-to-minimum", "power-to-driver-rating" or a limit rule's code.
+	//
+	// Example: surge
+	Code string `json:"code"`
+
+	// Limit Limit is the level (for a limit rule its warning level; for surge the control margin; for choke the least choke margin), in unit.
+	Limit       float64 `json:"limit"`
+	MarginAfter float64 `json:"margin_after"`
+
+	// MarginBefore MarginBefore and MarginAfter are the distances to the level as a fraction of it, positive inside.
+	MarginBefore float64 `json:"margin_before"`
+
+	// Rule Rule is the limit rule (it keys limit_overrides); absent for the operating margins.
+	//
+	// Example: discharge-temperature
+	Rule *string `json:"rule,omitempty"`
+
+	// Severity Severity is a limit rule's grade at the new duty.
+	//
+	// Example: ok
+	Severity *ApiMarginChangeOutSeverity `json:"severity,omitempty"`
+
+	// Stage Stage is the stage (from 1) a per-stage limit rule grades; absent for the machine's margins.
+	//
+	// Example: 1
+	Stage *int `json:"stage,omitempty"`
+
+	// Unit Example: -
+	Unit string `json:"unit"`
+}
+
+// ApiMarginChangeOutSeverity Severity is a limit rule's grade at the new duty.
+//
+// Example: ok
+type ApiMarginChangeOutSeverity string
 
 // ApiMethodOut defines model for api.MethodOut.
 type ApiMethodOut struct {
@@ -2728,6 +3192,30 @@ type ApiRatingVelocitiesOut struct {
 	TipSpeed    float64 `json:"tip_speed"`
 }
 
+// ApiRecycleOut defines model for api.RecycleOut.
+type ApiRecycleOut struct {
+	// ActualVolume ActualVolume is the recycled volume flow at suction conditions, m3/s.
+	//
+	// Example: 0.5
+	ActualVolume float64 `json:"actual_volume"`
+
+	// Basis Basis says how the recycle is taken.
+	Basis string `json:"basis"`
+
+	// CompressorFlow CompressorFlow is what the compressor then moves (duty plus recycle).
+	CompressorFlow ApiCheckFlowOut `json:"compressor_flow"`
+
+	// Mass Mass is the recycled mass flow, kg/s.
+	//
+	// Example: 1.2
+	Mass float64 `json:"mass"`
+
+	// ShaftPower ShaftPower with the recycle, W.
+	//
+	// Example: 520000
+	ShaftPower float64 `json:"shaft_power"`
+}
+
 // ApiSectionCoolerOut defines model for api.SectionCoolerOut.
 type ApiSectionCoolerOut struct {
 	// AfterStage AfterStage is the stage (1-based) the cooler follows.
@@ -3024,6 +3512,34 @@ type ApiSectionWarningOut struct {
 //
 // Example: warning
 type ApiSectionWarningOutSeverity string
+
+// ApiSimilarityOut defines model for api.SimilarityOut.
+type ApiSimilarityOut struct {
+	Baseline float64 `json:"baseline"`
+	Basis    string  `json:"basis"`
+	Duty     float64 `json:"duty"`
+	High     float64 `json:"high"`
+
+	// Kind Example: ratio
+	Kind ApiSimilarityOutKind `json:"kind"`
+
+	// Low Low and High bound the measure in the code.
+	Low float64 `json:"low"`
+
+	// Measure Measure is duty/baseline, or duty − baseline for the machine Mach number (kind).
+	Measure float64 `json:"measure"`
+
+	// Quantity Quantity is "specific-volume-ratio", "machine-mach", "machine-reynolds" or "flow-coefficient".
+	//
+	// Example: machine-mach
+	Quantity string `json:"quantity"`
+
+	// Within Within is false when the new duty lies outside the code's band.
+	Within bool `json:"within"`
+}
+
+// ApiSimilarityOutKind Example: ratio
+type ApiSimilarityOutKind string
 
 // ApiSpeedChoiceOut defines model for api.SpeedChoiceOut.
 type ApiSpeedChoiceOut struct {
@@ -3485,6 +4001,63 @@ type ApiSurgeControlSpec struct {
 	Margin *float64 `json:"margin,omitempty"`
 }
 
+// ApiSurgeOut defines model for api.SurgeOut.
+type ApiSurgeOut struct {
+	// ControlFlow ControlFlow is the anti-surge control line's flow at this speed, m3/s.
+	//
+	// Example: 1.43
+	ControlFlow float64 `json:"control_flow"`
+
+	// Flow Flow is the machine inlet volume flow at which the first stage to surge does so, m3/s (0: not estimated).
+	//
+	// Example: 1.3
+	Flow float64 `json:"flow"`
+
+	// Margin Margin is Q/Q_surge − 1.
+	//
+	// Example: 0.3
+	Margin float64 `json:"margin"`
+
+	// Stage Stage is the stage (1-based) that surges first (0: not estimated).
+	//
+	// Example: 1
+	Stage int `json:"stage"`
+}
+
+// ApiThrottlingOut defines model for api.ThrottlingOut.
+type ApiThrottlingOut struct {
+	// AlternativeRecycle AlternativeRecycle is the recycle alone (no throttle) at the minimum speed that brings the discharge down to the duty's; absent when none lies right of the control line and short of choke.
+	AlternativeRecycle *ApiAlternativeRecycleOut `json:"alternative_recycle,omitempty"`
+
+	// Basis Basis says how the throttling is taken.
+	Basis string `json:"basis"`
+
+	// PressureDrop PressureDrop is the drop across the throttle valve, Pa.
+	//
+	// Example: 15000
+	PressureDrop float64 `json:"pressure_drop"`
+
+	// RecycleMass RecycleMass is the recycle that holds the throttled compressor on the surge control line, kg/s (0: the throttling alone lies right of it).
+	//
+	// Example: 0
+	RecycleMass float64 `json:"recycle_mass"`
+
+	// ShaftPower ShaftPower at the throttled point, W.
+	//
+	// Example: 400000
+	ShaftPower float64 `json:"shaft_power"`
+
+	// Speed Speed is the minimum speed the machine runs at, rev/min.
+	//
+	// Example: 8050
+	Speed float64 `json:"speed"`
+
+	// SuctionPressure SuctionPressure is the pressure after the suction throttle valve, Pa absolute.
+	//
+	// Example: 85000
+	SuctionPressure float64 `json:"suction_pressure"`
+}
+
 // ApiVelocitiesOut defines model for api.VelocitiesOut.
 type ApiVelocitiesOut struct {
 	// ExitAbsolute ExitAbsolute is c2, m/s.
@@ -3600,6 +4173,12 @@ type ApiWarningOutSeverity string
 // GasPropertiesJSONRequestBody defines body for GasProperties for application/json ContentType.
 type GasPropertiesJSONRequestBody = ApiPropertiesRequest
 
+// CheckMachineJSONRequestBody defines body for CheckMachine for application/json ContentType.
+type CheckMachineJSONRequestBody = ApiMachineCheckRequest
+
+// CheckMachineBatchJSONRequestBody defines body for CheckMachineBatch for application/json ContentType.
+type CheckMachineBatchJSONRequestBody = ApiMachineCheckBatchRequest
+
 // MapMachineJSONRequestBody defines body for MapMachine for application/json ContentType.
 type MapMachineJSONRequestBody = ApiMapRequest
 
@@ -3623,6 +4202,68 @@ type SizeStageBatchCompactJSONRequestBody = ApiBatchRequest
 
 // SizeStageCompactJSONRequestBody defines body for SizeStageCompact for application/json ContentType.
 type SizeStageCompactJSONRequestBody = ApiStageRequest
+
+// AsApiCheckDutySpecDischargePressure0 returns the union data inside the ApiCheckDutySpec_DischargePressure as a ApiCheckDutySpecDischargePressure0
+func (t ApiCheckDutySpec_DischargePressure) AsApiCheckDutySpecDischargePressure0() (ApiCheckDutySpecDischargePressure0, error) {
+	var body ApiCheckDutySpecDischargePressure0
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiCheckDutySpecDischargePressure0 overwrites any union data inside the ApiCheckDutySpec_DischargePressure as the provided ApiCheckDutySpecDischargePressure0
+func (t *ApiCheckDutySpec_DischargePressure) FromApiCheckDutySpecDischargePressure0(v ApiCheckDutySpecDischargePressure0) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiCheckDutySpecDischargePressure0 performs a merge with any union data inside the ApiCheckDutySpec_DischargePressure, using the provided ApiCheckDutySpecDischargePressure0
+func (t *ApiCheckDutySpec_DischargePressure) MergeApiCheckDutySpecDischargePressure0(v ApiCheckDutySpecDischargePressure0) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+// AsApiCheckDutySpecDischargePressure1 returns the union data inside the ApiCheckDutySpec_DischargePressure as a ApiCheckDutySpecDischargePressure1
+func (t ApiCheckDutySpec_DischargePressure) AsApiCheckDutySpecDischargePressure1() (ApiCheckDutySpecDischargePressure1, error) {
+	var body ApiCheckDutySpecDischargePressure1
+	err := json.Unmarshal(t.union, &body)
+	return body, err
+}
+
+// FromApiCheckDutySpecDischargePressure1 overwrites any union data inside the ApiCheckDutySpec_DischargePressure as the provided ApiCheckDutySpecDischargePressure1
+func (t *ApiCheckDutySpec_DischargePressure) FromApiCheckDutySpecDischargePressure1(v ApiCheckDutySpecDischargePressure1) error {
+	b, err := json.Marshal(v)
+	t.union = b
+	return err
+}
+
+// MergeApiCheckDutySpecDischargePressure1 performs a merge with any union data inside the ApiCheckDutySpec_DischargePressure, using the provided ApiCheckDutySpecDischargePressure1
+func (t *ApiCheckDutySpec_DischargePressure) MergeApiCheckDutySpecDischargePressure1(v ApiCheckDutySpecDischargePressure1) error {
+	b, err := json.Marshal(v)
+	if err != nil {
+		return err
+	}
+
+	merged, err := runtime.JSONMerge(t.union, b)
+	t.union = merged
+	return err
+}
+
+func (t ApiCheckDutySpec_DischargePressure) MarshalJSON() ([]byte, error) {
+	b, err := t.union.MarshalJSON()
+	return b, err
+}
+
+func (t *ApiCheckDutySpec_DischargePressure) UnmarshalJSON(b []byte) error {
+	err := t.union.UnmarshalJSON(b)
+	return err
+}
 
 // AsApiDesignPointSpecDischargePressure0 returns the union data inside the ApiDesignPointSpec_DischargePressure as a ApiDesignPointSpecDischargePressure0
 func (t ApiDesignPointSpec_DischargePressure) AsApiDesignPointSpecDischargePressure0() (ApiDesignPointSpecDischargePressure0, error) {
@@ -6408,6 +7049,42 @@ type ClientInterface interface {
 	// Corresponds with POST /v1/gas/properties (the `GasProperties` operationId).
 	GasProperties(ctx context.Context, body GasPropertiesJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error)
 
+	// CheckMachineWithBody Check an installed machine against a new duty
+	//
+	// Finds the operating point of the machine (as a design endpoint answered it, or typed from a datasheet) at the new duty and at the baseline (default its design duty): the speed that makes the discharge pressure at the flow, stages stacked. Answers a verdict (fits, fits-with-recycle, fits-with-throttling, does-not-fit) with reasons, the operating point, the operating margins and every limit rule before and after, what changed ordered by how much margin it used up, and the ASME PTC 10 similarity of the new duty to the baseline. Surge, choke and the control line are estimates; see the cautions.
+	//
+	// Takes any type of body and a specified content type.
+	//
+	// Corresponds with POST /v1/machine/check (the `CheckMachine` operationId).
+	CheckMachineWithBody(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*http.Response, error)
+
+	// CheckMachine Check an installed machine against a new duty
+	//
+	// Finds the operating point of the machine (as a design endpoint answered it, or typed from a datasheet) at the new duty and at the baseline (default its design duty): the speed that makes the discharge pressure at the flow, stages stacked. Answers a verdict (fits, fits-with-recycle, fits-with-throttling, does-not-fit) with reasons, the operating point, the operating margins and every limit rule before and after, what changed ordered by how much margin it used up, and the ASME PTC 10 similarity of the new duty to the baseline. Surge, choke and the control line are estimates; see the cautions.
+	//
+	// Takes a body of the `application/json` content type.
+	//
+	// Corresponds with POST /v1/machine/check (the `CheckMachine` operationId).
+	CheckMachine(ctx context.Context, body CheckMachineJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error)
+
+	// CheckMachineBatchWithBody Check installed machines against many duties in one call
+	//
+	// Runs up to 200 duty-change checks independently (in parallel over the cores) and returns one item per check in request order: a result, or the problem the check would have had on its own, its pointers naming the field in the batch (/checks/INDEX/...). A malformed body or a check of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /checks/INDEX; a check whose unit strings do not parse, or whose duty is physically impossible, gets a problem item of its own.
+	//
+	// Takes any type of body and a specified content type.
+	//
+	// Corresponds with POST /v1/machine/check/batch (the `CheckMachineBatch` operationId).
+	CheckMachineBatchWithBody(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*http.Response, error)
+
+	// CheckMachineBatch Check installed machines against many duties in one call
+	//
+	// Runs up to 200 duty-change checks independently (in parallel over the cores) and returns one item per check in request order: a result, or the problem the check would have had on its own, its pointers naming the field in the batch (/checks/INDEX/...). A malformed body or a check of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /checks/INDEX; a check whose unit strings do not parse, or whose duty is physically impossible, gets a problem item of its own.
+	//
+	// Takes a body of the `application/json` content type.
+	//
+	// Corresponds with POST /v1/machine/check/batch (the `CheckMachineBatch` operationId).
+	CheckMachineBatch(ctx context.Context, body CheckMachineBatchJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error)
+
 	// MapMachineWithBody Estimated performance map of an installed machine
 	//
 	// Speed lines (polytropic head, pressure ratio, efficiency and power against actual inlet volume flow) from the estimated surge flow to just short of the estimated choke flow, the surge and choke lines, the design point and an optional operating point, for a gas at a suction state. Content negotiation on the same request: Accept application/json (default) answers the data, image/svg+xml the chart (drawn with gonum/plot), text/csv one row per point with a header naming the units. Surge and choke are estimates.
@@ -6536,7 +7213,7 @@ type ClientInterface interface {
 
 	// SizeStageCompactWithBody Size one stage: compact answer for machines
 	//
-	// The same sizing as POST /v1/stage/size (same request, same problems) answered in the compact view: every number, code and the verdict, the provenance's model and input hash, without the limit table's prose and bases, the warning messages, the methods, the defaults, the kij table and the cautions (about half the bytes of the full answer). For process simulators and other machines; a person reading a result should use the full view, whose cautions apply to this answer too.
+	// The same sizing as POST /v1/stage/size (same request, same problems) answered in the compact view: every number, code and the verdict, the provenance's model and input hash, without the limit table's prose and bases, the warning messages, the methods, the defaults, the kij table, the machine object (take it from the full answer) and the cautions (about half the bytes of the full answer). For process simulators and other machines; a person reading a result should use the full view, whose cautions apply to this answer too.
 	//
 	// Takes any type of body and a specified content type.
 	//
@@ -6545,7 +7222,7 @@ type ClientInterface interface {
 
 	// SizeStageCompact Size one stage: compact answer for machines
 	//
-	// The same sizing as POST /v1/stage/size (same request, same problems) answered in the compact view: every number, code and the verdict, the provenance's model and input hash, without the limit table's prose and bases, the warning messages, the methods, the defaults, the kij table and the cautions (about half the bytes of the full answer). For process simulators and other machines; a person reading a result should use the full view, whose cautions apply to this answer too.
+	// The same sizing as POST /v1/stage/size (same request, same problems) answered in the compact view: every number, code and the verdict, the provenance's model and input hash, without the limit table's prose and bases, the warning messages, the methods, the defaults, the kij table, the machine object (take it from the full answer) and the cautions (about half the bytes of the full answer). For process simulators and other machines; a person reading a result should use the full view, whose cautions apply to this answer too.
 	//
 	// Takes a body of the `application/json` content type.
 	//
@@ -6652,6 +7329,82 @@ func (c *Client) GasPropertiesWithBody(ctx context.Context, contentType string, 
 // Corresponds with POST /v1/gas/properties (the `GasProperties` operationId).
 func (c *Client) GasProperties(ctx context.Context, body GasPropertiesJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error) {
 	req, err := NewGasPropertiesRequest(c.Server, body)
+	if err != nil {
+		return nil, err
+	}
+	req = req.WithContext(ctx)
+	if err := c.applyEditors(ctx, req, reqEditors); err != nil {
+		return nil, err
+	}
+	return c.Client.Do(req)
+}
+
+// CheckMachineWithBody Check an installed machine against a new duty
+//
+// Finds the operating point of the machine (as a design endpoint answered it, or typed from a datasheet) at the new duty and at the baseline (default its design duty): the speed that makes the discharge pressure at the flow, stages stacked. Answers a verdict (fits, fits-with-recycle, fits-with-throttling, does-not-fit) with reasons, the operating point, the operating margins and every limit rule before and after, what changed ordered by how much margin it used up, and the ASME PTC 10 similarity of the new duty to the baseline. Surge, choke and the control line are estimates; see the cautions.
+//
+// Takes any type of body and a specified content type.
+//
+// Corresponds with POST /v1/machine/check (the `CheckMachine` operationId).
+func (c *Client) CheckMachineWithBody(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*http.Response, error) {
+	req, err := NewCheckMachineRequestWithBody(c.Server, contentType, body)
+	if err != nil {
+		return nil, err
+	}
+	req = req.WithContext(ctx)
+	if err := c.applyEditors(ctx, req, reqEditors); err != nil {
+		return nil, err
+	}
+	return c.Client.Do(req)
+}
+
+// CheckMachine Check an installed machine against a new duty
+//
+// Finds the operating point of the machine (as a design endpoint answered it, or typed from a datasheet) at the new duty and at the baseline (default its design duty): the speed that makes the discharge pressure at the flow, stages stacked. Answers a verdict (fits, fits-with-recycle, fits-with-throttling, does-not-fit) with reasons, the operating point, the operating margins and every limit rule before and after, what changed ordered by how much margin it used up, and the ASME PTC 10 similarity of the new duty to the baseline. Surge, choke and the control line are estimates; see the cautions.
+//
+// Takes a body of the `application/json` content type.
+//
+// Corresponds with POST /v1/machine/check (the `CheckMachine` operationId).
+func (c *Client) CheckMachine(ctx context.Context, body CheckMachineJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error) {
+	req, err := NewCheckMachineRequest(c.Server, body)
+	if err != nil {
+		return nil, err
+	}
+	req = req.WithContext(ctx)
+	if err := c.applyEditors(ctx, req, reqEditors); err != nil {
+		return nil, err
+	}
+	return c.Client.Do(req)
+}
+
+// CheckMachineBatchWithBody Check installed machines against many duties in one call
+//
+// Runs up to 200 duty-change checks independently (in parallel over the cores) and returns one item per check in request order: a result, or the problem the check would have had on its own, its pointers naming the field in the batch (/checks/INDEX/...). A malformed body or a check of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /checks/INDEX; a check whose unit strings do not parse, or whose duty is physically impossible, gets a problem item of its own.
+//
+// Takes any type of body and a specified content type.
+//
+// Corresponds with POST /v1/machine/check/batch (the `CheckMachineBatch` operationId).
+func (c *Client) CheckMachineBatchWithBody(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*http.Response, error) {
+	req, err := NewCheckMachineBatchRequestWithBody(c.Server, contentType, body)
+	if err != nil {
+		return nil, err
+	}
+	req = req.WithContext(ctx)
+	if err := c.applyEditors(ctx, req, reqEditors); err != nil {
+		return nil, err
+	}
+	return c.Client.Do(req)
+}
+
+// CheckMachineBatch Check installed machines against many duties in one call
+//
+// Runs up to 200 duty-change checks independently (in parallel over the cores) and returns one item per check in request order: a result, or the problem the check would have had on its own, its pointers naming the field in the batch (/checks/INDEX/...). A malformed body or a check of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /checks/INDEX; a check whose unit strings do not parse, or whose duty is physically impossible, gets a problem item of its own.
+//
+// Takes a body of the `application/json` content type.
+//
+// Corresponds with POST /v1/machine/check/batch (the `CheckMachineBatch` operationId).
+func (c *Client) CheckMachineBatch(ctx context.Context, body CheckMachineBatchJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error) {
+	req, err := NewCheckMachineBatchRequest(c.Server, body)
 	if err != nil {
 		return nil, err
 	}
@@ -6930,7 +7683,7 @@ func (c *Client) SizeStageBatchCompact(ctx context.Context, body SizeStageBatchC
 
 // SizeStageCompactWithBody Size one stage: compact answer for machines
 //
-// The same sizing as POST /v1/stage/size (same request, same problems) answered in the compact view: every number, code and the verdict, the provenance's model and input hash, without the limit table's prose and bases, the warning messages, the methods, the defaults, the kij table and the cautions (about half the bytes of the full answer). For process simulators and other machines; a person reading a result should use the full view, whose cautions apply to this answer too.
+// The same sizing as POST /v1/stage/size (same request, same problems) answered in the compact view: every number, code and the verdict, the provenance's model and input hash, without the limit table's prose and bases, the warning messages, the methods, the defaults, the kij table, the machine object (take it from the full answer) and the cautions (about half the bytes of the full answer). For process simulators and other machines; a person reading a result should use the full view, whose cautions apply to this answer too.
 //
 // Takes any type of body and a specified content type.
 //
@@ -6949,7 +7702,7 @@ func (c *Client) SizeStageCompactWithBody(ctx context.Context, contentType strin
 
 // SizeStageCompact Size one stage: compact answer for machines
 //
-// The same sizing as POST /v1/stage/size (same request, same problems) answered in the compact view: every number, code and the verdict, the provenance's model and input hash, without the limit table's prose and bases, the warning messages, the methods, the defaults, the kij table and the cautions (about half the bytes of the full answer). For process simulators and other machines; a person reading a result should use the full view, whose cautions apply to this answer too.
+// The same sizing as POST /v1/stage/size (same request, same problems) answered in the compact view: every number, code and the verdict, the provenance's model and input hash, without the limit table's prose and bases, the warning messages, the methods, the defaults, the kij table, the machine object (take it from the full answer) and the cautions (about half the bytes of the full answer). For process simulators and other machines; a person reading a result should use the full view, whose cautions apply to this answer too.
 //
 // Takes a body of the `application/json` content type.
 //
@@ -7110,6 +7863,86 @@ func NewGasPropertiesRequestWithBody(server string, contentType string, body io.
 	}
 
 	operationPath := fmt.Sprintf("/v1/gas/properties")
+	if operationPath[0] == '/' {
+		operationPath = "." + operationPath
+	}
+
+	queryURL, err := serverURL.Parse(operationPath)
+	if err != nil {
+		return nil, err
+	}
+
+	req, err := http.NewRequest(http.MethodPost, queryURL.String(), body)
+	if err != nil {
+		return nil, err
+	}
+
+	req.Header.Add("Content-Type", contentType)
+
+	return req, nil
+}
+
+// NewCheckMachineRequest calls the generic CheckMachine builder with application/json body
+func NewCheckMachineRequest(server string, body CheckMachineJSONRequestBody) (*http.Request, error) {
+	var bodyReader io.Reader
+	buf, err := json.Marshal(body)
+	if err != nil {
+		return nil, err
+	}
+	bodyReader = bytes.NewReader(buf)
+	return NewCheckMachineRequestWithBody(server, "application/json", bodyReader)
+}
+
+// NewCheckMachineRequestWithBody constructs an http.Request for the CheckMachine method, with any body, and a specified content type
+func NewCheckMachineRequestWithBody(server string, contentType string, body io.Reader) (*http.Request, error) {
+	var err error
+
+	serverURL, err := url.Parse(server)
+	if err != nil {
+		return nil, err
+	}
+
+	operationPath := fmt.Sprintf("/v1/machine/check")
+	if operationPath[0] == '/' {
+		operationPath = "." + operationPath
+	}
+
+	queryURL, err := serverURL.Parse(operationPath)
+	if err != nil {
+		return nil, err
+	}
+
+	req, err := http.NewRequest(http.MethodPost, queryURL.String(), body)
+	if err != nil {
+		return nil, err
+	}
+
+	req.Header.Add("Content-Type", contentType)
+
+	return req, nil
+}
+
+// NewCheckMachineBatchRequest calls the generic CheckMachineBatch builder with application/json body
+func NewCheckMachineBatchRequest(server string, body CheckMachineBatchJSONRequestBody) (*http.Request, error) {
+	var bodyReader io.Reader
+	buf, err := json.Marshal(body)
+	if err != nil {
+		return nil, err
+	}
+	bodyReader = bytes.NewReader(buf)
+	return NewCheckMachineBatchRequestWithBody(server, "application/json", bodyReader)
+}
+
+// NewCheckMachineBatchRequestWithBody constructs an http.Request for the CheckMachineBatch method, with any body, and a specified content type
+func NewCheckMachineBatchRequestWithBody(server string, contentType string, body io.Reader) (*http.Request, error) {
+	var err error
+
+	serverURL, err := url.Parse(server)
+	if err != nil {
+		return nil, err
+	}
+
+	operationPath := fmt.Sprintf("/v1/machine/check/batch")
 	if operationPath[0] == '/' {
 		operationPath = "." + operationPath
 	}
@@ -7572,6 +8405,42 @@ type ClientWithResponsesInterface interface {
 	// Corresponds with POST /v1/gas/properties (the `GasProperties` operationId).
 	GasPropertiesWithResponse(ctx context.Context, body GasPropertiesJSONRequestBody, reqEditors ...RequestEditorFn) (*GasPropertiesResponse, error)
 
+	// CheckMachineWithBodyWithResponse Check an installed machine against a new duty
+	//
+	// Finds the operating point of the machine (as a design endpoint answered it, or typed from a datasheet) at the new duty and at the baseline (default its design duty): the speed that makes the discharge pressure at the flow, stages stacked. Answers a verdict (fits, fits-with-recycle, fits-with-throttling, does-not-fit) with reasons, the operating point, the operating margins and every limit rule before and after, what changed ordered by how much margin it used up, and the ASME PTC 10 similarity of the new duty to the baseline. Surge, choke and the control line are estimates; see the cautions.
+	//
+	// Takes any type of body and a specified content type, and returns a wrapper object for the known response body format(s).
+	//
+	// Corresponds with POST /v1/machine/check (the `CheckMachine` operationId).
+	CheckMachineWithBodyWithResponse(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*CheckMachineResponse, error)
+
+	// CheckMachineWithResponse Check an installed machine against a new duty
+	//
+	// Finds the operating point of the machine (as a design endpoint answered it, or typed from a datasheet) at the new duty and at the baseline (default its design duty): the speed that makes the discharge pressure at the flow, stages stacked. Answers a verdict (fits, fits-with-recycle, fits-with-throttling, does-not-fit) with reasons, the operating point, the operating margins and every limit rule before and after, what changed ordered by how much margin it used up, and the ASME PTC 10 similarity of the new duty to the baseline. Surge, choke and the control line are estimates; see the cautions.
+	//
+	// Takes a body of the `application/json` content type, and returns a wrapper object for the known response body format(s).
+	//
+	// Corresponds with POST /v1/machine/check (the `CheckMachine` operationId).
+	CheckMachineWithResponse(ctx context.Context, body CheckMachineJSONRequestBody, reqEditors ...RequestEditorFn) (*CheckMachineResponse, error)
+
+	// CheckMachineBatchWithBodyWithResponse Check installed machines against many duties in one call
+	//
+	// Runs up to 200 duty-change checks independently (in parallel over the cores) and returns one item per check in request order: a result, or the problem the check would have had on its own, its pointers naming the field in the batch (/checks/INDEX/...). A malformed body or a check of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /checks/INDEX; a check whose unit strings do not parse, or whose duty is physically impossible, gets a problem item of its own.
+	//
+	// Takes any type of body and a specified content type, and returns a wrapper object for the known response body format(s).
+	//
+	// Corresponds with POST /v1/machine/check/batch (the `CheckMachineBatch` operationId).
+	CheckMachineBatchWithBodyWithResponse(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*CheckMachineBatchResponse, error)
+
+	// CheckMachineBatchWithResponse Check installed machines against many duties in one call
+	//
+	// Runs up to 200 duty-change checks independently (in parallel over the cores) and returns one item per check in request order: a result, or the problem the check would have had on its own, its pointers naming the field in the batch (/checks/INDEX/...). A malformed body or a check of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /checks/INDEX; a check whose unit strings do not parse, or whose duty is physically impossible, gets a problem item of its own.
+	//
+	// Takes a body of the `application/json` content type, and returns a wrapper object for the known response body format(s).
+	//
+	// Corresponds with POST /v1/machine/check/batch (the `CheckMachineBatch` operationId).
+	CheckMachineBatchWithResponse(ctx context.Context, body CheckMachineBatchJSONRequestBody, reqEditors ...RequestEditorFn) (*CheckMachineBatchResponse, error)
+
 	// MapMachineWithBodyWithResponse Estimated performance map of an installed machine
 	//
 	// Speed lines (polytropic head, pressure ratio, efficiency and power against actual inlet volume flow) from the estimated surge flow to just short of the estimated choke flow, the surge and choke lines, the design point and an optional operating point, for a gas at a suction state. Content negotiation on the same request: Accept application/json (default) answers the data, image/svg+xml the chart (drawn with gonum/plot), text/csv one row per point with a header naming the units. Surge and choke are estimates.
@@ -7700,7 +8569,7 @@ type ClientWithResponsesInterface interface {
 
 	// SizeStageCompactWithBodyWithResponse Size one stage: compact answer for machines
 	//
-	// The same sizing as POST /v1/stage/size (same request, same problems) answered in the compact view: every number, code and the verdict, the provenance's model and input hash, without the limit table's prose and bases, the warning messages, the methods, the defaults, the kij table and the cautions (about half the bytes of the full answer). For process simulators and other machines; a person reading a result should use the full view, whose cautions apply to this answer too.
+	// The same sizing as POST /v1/stage/size (same request, same problems) answered in the compact view: every number, code and the verdict, the provenance's model and input hash, without the limit table's prose and bases, the warning messages, the methods, the defaults, the kij table, the machine object (take it from the full answer) and the cautions (about half the bytes of the full answer). For process simulators and other machines; a person reading a result should use the full view, whose cautions apply to this answer too.
 	//
 	// Takes any type of body and a specified content type, and returns a wrapper object for the known response body format(s).
 	//
@@ -7709,7 +8578,7 @@ type ClientWithResponsesInterface interface {
 
 	// SizeStageCompactWithResponse Size one stage: compact answer for machines
 	//
-	// The same sizing as POST /v1/stage/size (same request, same problems) answered in the compact view: every number, code and the verdict, the provenance's model and input hash, without the limit table's prose and bases, the warning messages, the methods, the defaults, the kij table and the cautions (about half the bytes of the full answer). For process simulators and other machines; a person reading a result should use the full view, whose cautions apply to this answer too.
+	// The same sizing as POST /v1/stage/size (same request, same problems) answered in the compact view: every number, code and the verdict, the provenance's model and input hash, without the limit table's prose and bases, the warning messages, the methods, the defaults, the kij table, the machine object (take it from the full answer) and the cautions (about half the bytes of the full answer). For process simulators and other machines; a person reading a result should use the full view, whose cautions apply to this answer too.
 	//
 	// Takes a body of the `application/json` content type, and returns a wrapper object for the known response body format(s).
 	//
@@ -7986,6 +8855,179 @@ func (r GasPropertiesResponse) StatusCode() int {
 
 // ContentType is a convenience method to retrieve the Content-Type value from the HTTP response headers
 func (r GasPropertiesResponse) ContentType() string {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.Header.Get("Content-Type")
+	}
+	return ""
+}
+
+type CheckMachineResponse struct {
+	Body         []byte
+	HTTPResponse *http.Response
+	// JSON200 the response for an HTTP 200 `application/json` response
+	JSON200 *ApiMachineCheckResponse
+	// ApplicationproblemJSON400 the response for an HTTP 400 `application/problem+json` response
+	ApplicationproblemJSON400 *ApiProblem
+	// ApplicationproblemJSON401 the response for an HTTP 401 `application/problem+json` response
+	ApplicationproblemJSON401 *ApiProblem
+	// ApplicationproblemJSON413 the response for an HTTP 413 `application/problem+json` response
+	ApplicationproblemJSON413 *ApiProblem
+	// ApplicationproblemJSON422 the response for an HTTP 422 `application/problem+json` response
+	ApplicationproblemJSON422 *ApiProblem
+	// ApplicationproblemJSON500 the response for an HTTP 500 `application/problem+json` response
+	ApplicationproblemJSON500 *ApiProblem
+	// ApplicationproblemJSON503 the response for an HTTP 503 `application/problem+json` response
+	ApplicationproblemJSON503 *ApiProblem
+	// ApplicationproblemJSON504 the response for an HTTP 504 `application/problem+json` response
+	ApplicationproblemJSON504 *ApiProblem
+}
+
+// GetJSON200 returns the response for an HTTP 200 `application/json` response
+func (r CheckMachineResponse) GetJSON200() *ApiMachineCheckResponse {
+	return r.JSON200
+}
+
+// GetApplicationproblemJSON400 returns the response for an HTTP 400 `application/problem+json` response
+func (r CheckMachineResponse) GetApplicationproblemJSON400() *ApiProblem {
+	return r.ApplicationproblemJSON400
+}
+
+// GetApplicationproblemJSON401 returns the response for an HTTP 401 `application/problem+json` response
+func (r CheckMachineResponse) GetApplicationproblemJSON401() *ApiProblem {
+	return r.ApplicationproblemJSON401
+}
+
+// GetApplicationproblemJSON413 returns the response for an HTTP 413 `application/problem+json` response
+func (r CheckMachineResponse) GetApplicationproblemJSON413() *ApiProblem {
+	return r.ApplicationproblemJSON413
+}
+
+// GetApplicationproblemJSON422 returns the response for an HTTP 422 `application/problem+json` response
+func (r CheckMachineResponse) GetApplicationproblemJSON422() *ApiProblem {
+	return r.ApplicationproblemJSON422
+}
+
+// GetApplicationproblemJSON500 returns the response for an HTTP 500 `application/problem+json` response
+func (r CheckMachineResponse) GetApplicationproblemJSON500() *ApiProblem {
+	return r.ApplicationproblemJSON500
+}
+
+// GetApplicationproblemJSON503 returns the response for an HTTP 503 `application/problem+json` response
+func (r CheckMachineResponse) GetApplicationproblemJSON503() *ApiProblem {
+	return r.ApplicationproblemJSON503
+}
+
+// GetApplicationproblemJSON504 returns the response for an HTTP 504 `application/problem+json` response
+func (r CheckMachineResponse) GetApplicationproblemJSON504() *ApiProblem {
+	return r.ApplicationproblemJSON504
+}
+
+// GetBody returns the raw response body bytes
+func (r CheckMachineResponse) GetBody() []byte {
+	return r.Body
+}
+
+// Status returns HTTPResponse.Status
+func (r CheckMachineResponse) Status() string {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.Status
+	}
+	return http.StatusText(0)
+}
+
+// StatusCode returns HTTPResponse.StatusCode
+func (r CheckMachineResponse) StatusCode() int {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.StatusCode
+	}
+	return 0
+}
+
+// ContentType is a convenience method to retrieve the Content-Type value from the HTTP response headers
+func (r CheckMachineResponse) ContentType() string {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.Header.Get("Content-Type")
+	}
+	return ""
+}
+
+type CheckMachineBatchResponse struct {
+	Body         []byte
+	HTTPResponse *http.Response
+	// JSON200 the response for an HTTP 200 `application/json` response
+	JSON200 *ApiMachineCheckBatchResponse
+	// ApplicationproblemJSON400 the response for an HTTP 400 `application/problem+json` response
+	ApplicationproblemJSON400 *ApiProblem
+	// ApplicationproblemJSON401 the response for an HTTP 401 `application/problem+json` response
+	ApplicationproblemJSON401 *ApiProblem
+	// ApplicationproblemJSON413 the response for an HTTP 413 `application/problem+json` response
+	ApplicationproblemJSON413 *ApiProblem
+	// ApplicationproblemJSON500 the response for an HTTP 500 `application/problem+json` response
+	ApplicationproblemJSON500 *ApiProblem
+	// ApplicationproblemJSON503 the response for an HTTP 503 `application/problem+json` response
+	ApplicationproblemJSON503 *ApiProblem
+	// ApplicationproblemJSON504 the response for an HTTP 504 `application/problem+json` response
+	ApplicationproblemJSON504 *ApiProblem
+}
+
+// GetJSON200 returns the response for an HTTP 200 `application/json` response
+func (r CheckMachineBatchResponse) GetJSON200() *ApiMachineCheckBatchResponse {
+	return r.JSON200
+}
+
+// GetApplicationproblemJSON400 returns the response for an HTTP 400 `application/problem+json` response
+func (r CheckMachineBatchResponse) GetApplicationproblemJSON400() *ApiProblem {
+	return r.ApplicationproblemJSON400
+}
+
+// GetApplicationproblemJSON401 returns the response for an HTTP 401 `application/problem+json` response
+func (r CheckMachineBatchResponse) GetApplicationproblemJSON401() *ApiProblem {
+	return r.ApplicationproblemJSON401
+}
+
+// GetApplicationproblemJSON413 returns the response for an HTTP 413 `application/problem+json` response
+func (r CheckMachineBatchResponse) GetApplicationproblemJSON413() *ApiProblem {
+	return r.ApplicationproblemJSON413
+}
+
+// GetApplicationproblemJSON500 returns the response for an HTTP 500 `application/problem+json` response
+func (r CheckMachineBatchResponse) GetApplicationproblemJSON500() *ApiProblem {
+	return r.ApplicationproblemJSON500
+}
+
+// GetApplicationproblemJSON503 returns the response for an HTTP 503 `application/problem+json` response
+func (r CheckMachineBatchResponse) GetApplicationproblemJSON503() *ApiProblem {
+	return r.ApplicationproblemJSON503
+}
+
+// GetApplicationproblemJSON504 returns the response for an HTTP 504 `application/problem+json` response
+func (r CheckMachineBatchResponse) GetApplicationproblemJSON504() *ApiProblem {
+	return r.ApplicationproblemJSON504
+}
+
+// GetBody returns the raw response body bytes
+func (r CheckMachineBatchResponse) GetBody() []byte {
+	return r.Body
+}
+
+// Status returns HTTPResponse.Status
+func (r CheckMachineBatchResponse) Status() string {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.Status
+	}
+	return http.StatusText(0)
+}
+
+// StatusCode returns HTTPResponse.StatusCode
+func (r CheckMachineBatchResponse) StatusCode() int {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.StatusCode
+	}
+	return 0
+}
+
+// ContentType is a convenience method to retrieve the Content-Type value from the HTTP response headers
+func (r CheckMachineBatchResponse) ContentType() string {
 	if r.HTTPResponse != nil {
 		return r.HTTPResponse.Header.Get("Content-Type")
 	}
@@ -8820,6 +9862,66 @@ func (c *ClientWithResponses) GasPropertiesWithResponse(ctx context.Context, bod
 	return ParseGasPropertiesResponse(rsp)
 }
 
+// CheckMachineWithBodyWithResponse Check an installed machine against a new duty
+//
+// Finds the operating point of the machine (as a design endpoint answered it, or typed from a datasheet) at the new duty and at the baseline (default its design duty): the speed that makes the discharge pressure at the flow, stages stacked. Answers a verdict (fits, fits-with-recycle, fits-with-throttling, does-not-fit) with reasons, the operating point, the operating margins and every limit rule before and after, what changed ordered by how much margin it used up, and the ASME PTC 10 similarity of the new duty to the baseline. Surge, choke and the control line are estimates; see the cautions.
+//
+// Takes any type of body and a specified content type, and returns a wrapper object for the known response body format(s).
+//
+// Corresponds with POST /v1/machine/check (the `CheckMachine` operationId).
+func (c *ClientWithResponses) CheckMachineWithBodyWithResponse(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*CheckMachineResponse, error) {
+	rsp, err := c.CheckMachineWithBody(ctx, contentType, body, reqEditors...)
+	if err != nil {
+		return nil, err
+	}
+	return ParseCheckMachineResponse(rsp)
+}
+
+// CheckMachineWithResponse Check an installed machine against a new duty
+//
+// Finds the operating point of the machine (as a design endpoint answered it, or typed from a datasheet) at the new duty and at the baseline (default its design duty): the speed that makes the discharge pressure at the flow, stages stacked. Answers a verdict (fits, fits-with-recycle, fits-with-throttling, does-not-fit) with reasons, the operating point, the operating margins and every limit rule before and after, what changed ordered by how much margin it used up, and the ASME PTC 10 similarity of the new duty to the baseline. Surge, choke and the control line are estimates; see the cautions.
+//
+// Takes a body of the `application/json` content type, and returns a wrapper object for the known response body format(s).
+//
+// Corresponds with POST /v1/machine/check (the `CheckMachine` operationId).
+func (c *ClientWithResponses) CheckMachineWithResponse(ctx context.Context, body CheckMachineJSONRequestBody, reqEditors ...RequestEditorFn) (*CheckMachineResponse, error) {
+	rsp, err := c.CheckMachine(ctx, body, reqEditors...)
+	if err != nil {
+		return nil, err
+	}
+	return ParseCheckMachineResponse(rsp)
+}
+
+// CheckMachineBatchWithBodyWithResponse Check installed machines against many duties in one call
+//
+// Runs up to 200 duty-change checks independently (in parallel over the cores) and returns one item per check in request order: a result, or the problem the check would have had on its own, its pointers naming the field in the batch (/checks/INDEX/...). A malformed body or a check of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /checks/INDEX; a check whose unit strings do not parse, or whose duty is physically impossible, gets a problem item of its own.
+//
+// Takes any type of body and a specified content type, and returns a wrapper object for the known response body format(s).
+//
+// Corresponds with POST /v1/machine/check/batch (the `CheckMachineBatch` operationId).
+func (c *ClientWithResponses) CheckMachineBatchWithBodyWithResponse(ctx context.Context, contentType string, body io.Reader, reqEditors ...RequestEditorFn) (*CheckMachineBatchResponse, error) {
+	rsp, err := c.CheckMachineBatchWithBody(ctx, contentType, body, reqEditors...)
+	if err != nil {
+		return nil, err
+	}
+	return ParseCheckMachineBatchResponse(rsp)
+}
+
+// CheckMachineBatchWithResponse Check installed machines against many duties in one call
+//
+// Runs up to 200 duty-change checks independently (in parallel over the cores) and returns one item per check in request order: a result, or the problem the check would have had on its own, its pointers naming the field in the batch (/checks/INDEX/...). A malformed body or a check of the wrong JSON shape rejects the whole batch with a 400 whose pointers start with /checks/INDEX; a check whose unit strings do not parse, or whose duty is physically impossible, gets a problem item of its own.
+//
+// Takes a body of the `application/json` content type, and returns a wrapper object for the known response body format(s).
+//
+// Corresponds with POST /v1/machine/check/batch (the `CheckMachineBatch` operationId).
+func (c *ClientWithResponses) CheckMachineBatchWithResponse(ctx context.Context, body CheckMachineBatchJSONRequestBody, reqEditors ...RequestEditorFn) (*CheckMachineBatchResponse, error) {
+	rsp, err := c.CheckMachineBatch(ctx, body, reqEditors...)
+	if err != nil {
+		return nil, err
+	}
+	return ParseCheckMachineBatchResponse(rsp)
+}
+
 // MapMachineWithBodyWithResponse Estimated performance map of an installed machine
 //
 // Speed lines (polytropic head, pressure ratio, efficiency and power against actual inlet volume flow) from the estimated surge flow to just short of the estimated choke flow, the surge and choke lines, the design point and an optional operating point, for a gas at a suction state. Content negotiation on the same request: Accept application/json (default) answers the data, image/svg+xml the chart (drawn with gonum/plot), text/csv one row per point with a header naming the units. Surge and choke are estimates.
@@ -9032,7 +10134,7 @@ func (c *ClientWithResponses) SizeStageBatchCompactWithResponse(ctx context.Cont
 
 // SizeStageCompactWithBodyWithResponse Size one stage: compact answer for machines
 //
-// The same sizing as POST /v1/stage/size (same request, same problems) answered in the compact view: every number, code and the verdict, the provenance's model and input hash, without the limit table's prose and bases, the warning messages, the methods, the defaults, the kij table and the cautions (about half the bytes of the full answer). For process simulators and other machines; a person reading a result should use the full view, whose cautions apply to this answer too.
+// The same sizing as POST /v1/stage/size (same request, same problems) answered in the compact view: every number, code and the verdict, the provenance's model and input hash, without the limit table's prose and bases, the warning messages, the methods, the defaults, the kij table, the machine object (take it from the full answer) and the cautions (about half the bytes of the full answer). For process simulators and other machines; a person reading a result should use the full view, whose cautions apply to this answer too.
 //
 // Takes any type of body and a specified content type, and returns a wrapper object for the known response body format(s).
 //
@@ -9047,7 +10149,7 @@ func (c *ClientWithResponses) SizeStageCompactWithBodyWithResponse(ctx context.C
 
 // SizeStageCompactWithResponse Size one stage: compact answer for machines
 //
-// The same sizing as POST /v1/stage/size (same request, same problems) answered in the compact view: every number, code and the verdict, the provenance's model and input hash, without the limit table's prose and bases, the warning messages, the methods, the defaults, the kij table and the cautions (about half the bytes of the full answer). For process simulators and other machines; a person reading a result should use the full view, whose cautions apply to this answer too.
+// The same sizing as POST /v1/stage/size (same request, same problems) answered in the compact view: every number, code and the verdict, the provenance's model and input hash, without the limit table's prose and bases, the warning messages, the methods, the defaults, the kij table, the machine object (take it from the full answer) and the cautions (about half the bytes of the full answer). For process simulators and other machines; a person reading a result should use the full view, whose cautions apply to this answer too.
 //
 // Takes a body of the `application/json` content type, and returns a wrapper object for the known response body format(s).
 //
@@ -9236,6 +10338,149 @@ func ParseGasPropertiesResponse(rsp *http.Response) (*GasPropertiesResponse, err
 			return nil, err
 		}
 		response.ApplicationproblemJSON422 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 500:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON500 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 503:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON503 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 504:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON504 = &dest
+
+	}
+
+	return response, nil
+}
+
+// ParseCheckMachineResponse parses an HTTP response from a CheckMachineWithResponse call
+func ParseCheckMachineResponse(rsp *http.Response) (*CheckMachineResponse, error) {
+	bodyBytes, err := io.ReadAll(rsp.Body)
+	defer func() { _ = rsp.Body.Close() }()
+	if err != nil {
+		return nil, err
+	}
+
+	response := &CheckMachineResponse{
+		Body:         bodyBytes,
+		HTTPResponse: rsp,
+	}
+
+	switch {
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 200:
+		var dest ApiMachineCheckResponse
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.JSON200 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 400:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON400 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 401:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON401 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 413:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON413 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 422:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON422 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 500:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON500 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 503:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON503 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 504:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON504 = &dest
+
+	}
+
+	return response, nil
+}
+
+// ParseCheckMachineBatchResponse parses an HTTP response from a CheckMachineBatchWithResponse call
+func ParseCheckMachineBatchResponse(rsp *http.Response) (*CheckMachineBatchResponse, error) {
+	bodyBytes, err := io.ReadAll(rsp.Body)
+	defer func() { _ = rsp.Body.Close() }()
+	if err != nil {
+		return nil, err
+	}
+
+	response := &CheckMachineBatchResponse{
+		Body:         bodyBytes,
+		HTTPResponse: rsp,
+	}
+
+	switch {
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 200:
+		var dest ApiMachineCheckBatchResponse
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.JSON200 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 400:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON400 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 401:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON401 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 413:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON413 = &dest
 
 	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 500:
 		var dest ApiProblem
