@@ -115,6 +115,7 @@ func NewRouter(svc Services, opts Options) (*gin.Engine, error) {
 	if len(opts.Tokens) > 0 {
 		v1.Use(bearerAuth(opts.Tokens))
 	}
+	v1.Use(requireJSON())
 	if opts.MaxInFlight > 0 {
 		v1.Use(shed(opts.MaxInFlight))
 	}

@@ -3733,8 +3733,12 @@ type GasPropertiesResponse struct {
 	ApplicationproblemJSON400 *ApiProblem
 	// ApplicationproblemJSON401 the response for an HTTP 401 `application/problem+json` response
 	ApplicationproblemJSON401 *ApiProblem
+	// ApplicationproblemJSON408 the response for an HTTP 408 `application/problem+json` response
+	ApplicationproblemJSON408 *ApiProblem
 	// ApplicationproblemJSON413 the response for an HTTP 413 `application/problem+json` response
 	ApplicationproblemJSON413 *ApiProblem
+	// ApplicationproblemJSON415 the response for an HTTP 415 `application/problem+json` response
+	ApplicationproblemJSON415 *ApiProblem
 	// ApplicationproblemJSON422 the response for an HTTP 422 `application/problem+json` response
 	ApplicationproblemJSON422 *ApiProblem
 	// ApplicationproblemJSON500 the response for an HTTP 500 `application/problem+json` response
@@ -3760,9 +3764,19 @@ func (r GasPropertiesResponse) GetApplicationproblemJSON401() *ApiProblem {
 	return r.ApplicationproblemJSON401
 }
 
+// GetApplicationproblemJSON408 returns the response for an HTTP 408 `application/problem+json` response
+func (r GasPropertiesResponse) GetApplicationproblemJSON408() *ApiProblem {
+	return r.ApplicationproblemJSON408
+}
+
 // GetApplicationproblemJSON413 returns the response for an HTTP 413 `application/problem+json` response
 func (r GasPropertiesResponse) GetApplicationproblemJSON413() *ApiProblem {
 	return r.ApplicationproblemJSON413
+}
+
+// GetApplicationproblemJSON415 returns the response for an HTTP 415 `application/problem+json` response
+func (r GasPropertiesResponse) GetApplicationproblemJSON415() *ApiProblem {
+	return r.ApplicationproblemJSON415
 }
 
 // GetApplicationproblemJSON422 returns the response for an HTTP 422 `application/problem+json` response
@@ -3823,8 +3837,12 @@ type SizeStageResponse struct {
 	ApplicationproblemJSON400 *ApiProblem
 	// ApplicationproblemJSON401 the response for an HTTP 401 `application/problem+json` response
 	ApplicationproblemJSON401 *ApiProblem
+	// ApplicationproblemJSON408 the response for an HTTP 408 `application/problem+json` response
+	ApplicationproblemJSON408 *ApiProblem
 	// ApplicationproblemJSON413 the response for an HTTP 413 `application/problem+json` response
 	ApplicationproblemJSON413 *ApiProblem
+	// ApplicationproblemJSON415 the response for an HTTP 415 `application/problem+json` response
+	ApplicationproblemJSON415 *ApiProblem
 	// ApplicationproblemJSON422 the response for an HTTP 422 `application/problem+json` response
 	ApplicationproblemJSON422 *ApiProblem
 	// ApplicationproblemJSON500 the response for an HTTP 500 `application/problem+json` response
@@ -3850,9 +3868,19 @@ func (r SizeStageResponse) GetApplicationproblemJSON401() *ApiProblem {
 	return r.ApplicationproblemJSON401
 }
 
+// GetApplicationproblemJSON408 returns the response for an HTTP 408 `application/problem+json` response
+func (r SizeStageResponse) GetApplicationproblemJSON408() *ApiProblem {
+	return r.ApplicationproblemJSON408
+}
+
 // GetApplicationproblemJSON413 returns the response for an HTTP 413 `application/problem+json` response
 func (r SizeStageResponse) GetApplicationproblemJSON413() *ApiProblem {
 	return r.ApplicationproblemJSON413
+}
+
+// GetApplicationproblemJSON415 returns the response for an HTTP 415 `application/problem+json` response
+func (r SizeStageResponse) GetApplicationproblemJSON415() *ApiProblem {
+	return r.ApplicationproblemJSON415
 }
 
 // GetApplicationproblemJSON422 returns the response for an HTTP 422 `application/problem+json` response
@@ -3913,8 +3941,12 @@ type SizeStageBatchResponse struct {
 	ApplicationproblemJSON400 *ApiProblem
 	// ApplicationproblemJSON401 the response for an HTTP 401 `application/problem+json` response
 	ApplicationproblemJSON401 *ApiProblem
+	// ApplicationproblemJSON408 the response for an HTTP 408 `application/problem+json` response
+	ApplicationproblemJSON408 *ApiProblem
 	// ApplicationproblemJSON413 the response for an HTTP 413 `application/problem+json` response
 	ApplicationproblemJSON413 *ApiProblem
+	// ApplicationproblemJSON415 the response for an HTTP 415 `application/problem+json` response
+	ApplicationproblemJSON415 *ApiProblem
 	// ApplicationproblemJSON500 the response for an HTTP 500 `application/problem+json` response
 	ApplicationproblemJSON500 *ApiProblem
 	// ApplicationproblemJSON503 the response for an HTTP 503 `application/problem+json` response
@@ -3938,9 +3970,19 @@ func (r SizeStageBatchResponse) GetApplicationproblemJSON401() *ApiProblem {
 	return r.ApplicationproblemJSON401
 }
 
+// GetApplicationproblemJSON408 returns the response for an HTTP 408 `application/problem+json` response
+func (r SizeStageBatchResponse) GetApplicationproblemJSON408() *ApiProblem {
+	return r.ApplicationproblemJSON408
+}
+
 // GetApplicationproblemJSON413 returns the response for an HTTP 413 `application/problem+json` response
 func (r SizeStageBatchResponse) GetApplicationproblemJSON413() *ApiProblem {
 	return r.ApplicationproblemJSON413
+}
+
+// GetApplicationproblemJSON415 returns the response for an HTTP 415 `application/problem+json` response
+func (r SizeStageBatchResponse) GetApplicationproblemJSON415() *ApiProblem {
+	return r.ApplicationproblemJSON415
 }
 
 // GetApplicationproblemJSON500 returns the response for an HTTP 500 `application/problem+json` response
@@ -4339,12 +4381,26 @@ func ParseGasPropertiesResponse(rsp *http.Response) (*GasPropertiesResponse, err
 		}
 		response.ApplicationproblemJSON401 = &dest
 
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 408:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON408 = &dest
+
 	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 413:
 		var dest ApiProblem
 		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
 			return nil, err
 		}
 		response.ApplicationproblemJSON413 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 415:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON415 = &dest
 
 	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 422:
 		var dest ApiProblem
@@ -4414,12 +4470,26 @@ func ParseSizeStageResponse(rsp *http.Response) (*SizeStageResponse, error) {
 		}
 		response.ApplicationproblemJSON401 = &dest
 
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 408:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON408 = &dest
+
 	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 413:
 		var dest ApiProblem
 		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
 			return nil, err
 		}
 		response.ApplicationproblemJSON413 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 415:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON415 = &dest
 
 	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 422:
 		var dest ApiProblem
@@ -4489,12 +4559,26 @@ func ParseSizeStageBatchResponse(rsp *http.Response) (*SizeStageBatchResponse, e
 		}
 		response.ApplicationproblemJSON401 = &dest
 
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 408:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON408 = &dest
+
 	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 413:
 		var dest ApiProblem
 		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
 			return nil, err
 		}
 		response.ApplicationproblemJSON413 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 415:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON415 = &dest
 
 	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 500:
 		var dest ApiProblem

@@ -1,0 +1,133 @@
+package api_test
+
+import (
+	"bufio"
+	"fmt"
+	"io"
+	"net"
+	"net/http"
+	"net/http/httptest"
+	"strings"
+	"testing"
+	"time"
+
+	"github.com/stretchr/testify/assert"
+	"github.com/stretchr/testify/require"
+)
+
+// Tests of the findings of issue 13's hostile-input trial that the HTTP
+// layer answers (the decoder's own findings are in decode_internal_test.go).
+
+// TestUnsupportedMediaType (issue 13 item 12): a POST body that is not
+// declared JSON is a 415 problem on every POST route (RFC 9110 §15.5.16);
+// application/json with parameters and any application/*+json type
+// (RFC 6839 §3.1) are read.
+func TestUnsupportedMediaType(t *testing.T) {
+	h := newRouter(t)
+	bodies := map[string]string{
+		"/v1/stage/size":       demoDuty,
+		"/v1/stage/size/batch": `{"duties": [` + demoDuty + `]}`,
+		"/v1/gas/properties":   propsBody,
+	}
+	for path, body := range bodies {
+		for _, ct := range []string{"text/plain", "application/x-www-form-urlencoded", "", "application/jsonx", "json", "application/xml"} {
+			t.Run(path+" "+ct, func(t *testing.T) {
+				req := httptest.NewRequest(http.MethodPost, path, strings.NewReader(body))
+				if ct != "" {
+					req.Header.Set("Content-Type", ct)
+				}
+				p := requireProblem(t, send(h, req), http.StatusUnsupportedMediaType, "unsupported-media-type")
+				assert.Contains(t, p.Detail, "application/json")
+			})
+		}
+		for _, ct := range []string{"application/json", "application/json; charset=utf-8", "Application/JSON", "application/vnd.kestrel.duty+json"} {
+			t.Run(path+" "+ct, func(t *testing.T) {
+				req := httptest.NewRequest(http.MethodPost, path, strings.NewReader(body))
+				req.Header.Set("Content-Type", ct)
+				w := send(plainRouter(t), req) // the document names application/json only
+				assert.Equal(t, http.StatusOK, w.Code, w.Body.String())
+			})
+		}
+	}
+	t.Run("an empty POST without a type is an empty body", func(t *testing.T) {
+		req := httptest.NewRequest(http.MethodPost, "/v1/stage/size", nil)
+		p := requireProblem(t, send(h, req), http.StatusBadRequest, "malformed-body")
+		assert.Contains(t, p.Detail, "empty")
+	})
+}
+
+// TestDuplicateKeysOverHTTP (issue 13 item 13): a key given twice is a 400
+// naming it, in a duty and in a batch duty, where the former decoder kept
+// the last value.
+func TestDuplicateKeysOverHTTP(t *testing.T) {
+	h := newRouter(t)
+	dup := strings.Replace(demoDuty, `"speed": 24000,`, `"speed": 24000, "speed": 12000,`, 1)
+	require.NotEqual(t, demoDuty, dup)
+	p := requireProblem(t, postStage(h, dup), http.StatusBadRequest, "invalid-request")
+	assert.Equal(t, []string{"/speed"}, p.pointers())
+	assert.Contains(t, p.details(), `duplicate key "speed"`)
+
+	w := do(h, http.MethodPost, "/v1/stage/size/batch", `{"duties": [`+demoDuty+`,`+dup+`]}`)
+	p = requireProblem(t, w, http.StatusBadRequest, "invalid-request")
+	assert.Equal(t, []string{"/duties/1/speed"}, p.pointers())
+}
+
+// TestBatchTypeErrorsKeepTheIndex (issue 13 item 1): the pointer of a
+// wrongly typed value in a batch names the duty, as the batch's own
+// description promises (/duties/INDEX).
+func TestBatchTypeErrorsKeepTheIndex(t *testing.T) {
+	h := newRouter(t)
+	retyped := strings.Replace(demoDuty, `"pressure_ratio": 2.4`, `"pressure_ratio": "2"`, 1)
+	tests := []struct {
+		name, body string
+		want       []string
+	}{
+		{"string for a number", `{"duties": [` + demoDuty + `,` + retyped + `]}`, []string{"/duties/1/pressure_ratio"}},
+		{"array for a duty", `{"duties": [` + demoDuty + `,[` + demoDuty + `]]}`, []string{"/duties/1"}},
+		{"numbers for duties", `{"duties": [0, 1]}`, []string{"/duties/0", "/duties/1"}},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			p := requireProblem(t, do(h, http.MethodPost, "/v1/stage/size/batch", tt.body), http.StatusBadRequest, "invalid-request")
+			assert.Equal(t, tt.want, p.pointers())
+		})
+	}
+}
+
+// TestNumberMessages (issue 13 item 8): a number its field cannot hold is
+// named "out of range", a fraction for an integer "must be an integer".
+func TestNumberMessages(t *testing.T) {
+	h := newRouter(t)
+	p := requireProblem(t, postStage(h, strings.Replace(demoDuty, `"pressure_ratio": 2.4`, `"pressure_ratio": -1e400`, 1)),
+		http.StatusBadRequest, "invalid-request")
+	assert.Equal(t, []string{"/pressure_ratio"}, p.pointers())
+	assert.Contains(t, p.details(), "out of range")
+	p = requireProblem(t, postStage(h, strings.Replace(demoDuty, `"slip_factor": 0.88`, `"blade_count": 2.5`, 1)),
+		http.StatusBadRequest, "invalid-request")
+	assert.Equal(t, []string{"/impeller/blade_count"}, p.pointers())
+	assert.Contains(t, p.details(), "must be an integer")
+}
+
+// TestSlowBodyTimesOut (issue 13 item 10): a body that does not arrive
+// within the server's read timeout is answered 408 with a problem, not
+// "Body is not valid JSON".
+func TestSlowBodyTimesOut(t *testing.T) {
+	srv := httptest.NewUnstartedServer(plainRouter(t))
+	srv.Config.ReadTimeout = 300 * time.Millisecond
+	srv.Start()
+	defer srv.Close()
+	conn, err := net.Dial("tcp", srv.Listener.Addr().String())
+	require.NoError(t, err)
+	defer conn.Close()
+	_, err = fmt.Fprintf(conn, "POST /v1/stage/size HTTP/1.1\r\nHost: x\r\nContent-Type: application/json\r\nContent-Length: %d\r\n\r\n%s",
+		len(demoDuty), demoDuty[:20])
+	require.NoError(t, err)
+	require.NoError(t, conn.SetReadDeadline(time.Now().Add(10*time.Second)))
+	resp, err := http.ReadResponse(bufio.NewReader(conn), nil)
+	require.NoError(t, err)
+	defer resp.Body.Close()
+	body, _ := io.ReadAll(resp.Body)
+	assert.Equal(t, http.StatusRequestTimeout, resp.StatusCode, string(body))
+	assert.Equal(t, "application/problem+json", resp.Header.Get("Content-Type"))
+	assert.Contains(t, string(body), problemBase+"request-timeout")
+}
