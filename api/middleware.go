@@ -198,3 +198,19 @@ func jsonMediaType(ct string) bool {
 	}
 	return mt == "application/json" || (strings.HasPrefix(mt, "application/") && strings.HasSuffix(mt, "+json"))
 }
+
+// closeWhenDraining answers every request with Connection: close once
+// ready reports false (shutdown has begun): the client then opens its next
+// connection, which a load balancer sends to another replica, instead of
+// reusing this one until the listener closes and a request sent on it as
+// it closes is lost. Idle connections are left open until
+// http.Server.Shutdown: closing them now would race with requests being
+// sent on them.
+func closeWhenDraining(ready func() bool) gin.HandlerFunc {
+	return func(c *gin.Context) {
+		if !ready() {
+			c.Header("Connection", "close")
+		}
+		c.Next()
+	}
+}

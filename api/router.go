@@ -48,7 +48,8 @@ type Options struct {
 	// stagewright_build_info metric.
 	Version, Commit string
 	// Ready reports whether the service takes traffic (GET /readyz); nil
-	// is always ready.
+	// is always ready. While it reports false every answer carries
+	// Connection: close.
 	Ready func() bool
 	// Registry receives the metrics served at /metrics; nil is a new
 	// private registry.
@@ -88,7 +89,7 @@ func NewRouter(svc Services, opts Options) (*gin.Engine, error) {
 
 	r := gin.New()
 	r.HandleMethodNotAllowed = true
-	r.Use(requestID(), observe(log, m), recovery(log))
+	r.Use(requestID(), closeWhenDraining(ready), observe(log, m), recovery(log))
 	if len(opts.CORSOrigins) > 0 {
 		r.Use(cors(opts.CORSOrigins))
 	}

@@ -20,7 +20,8 @@ import (
 )
 
 // run starts the server and blocks until ctx ends (SIGTERM or SIGINT in
-// main), then shuts down gracefully: readiness off, after
+// main), then shuts down gracefully: readiness off (from then on every
+// answer says Connection: close, api.Options.Ready), after
 // cfg.ShutdownDelay the listener closes, and in-flight requests get
 // cfg.ShutdownGrace to finish. It returns nil after a clean shutdown.
 func run(ctx context.Context, args []string, getenv func(string) string, stdout, stderr io.Writer) error {
