@@ -2870,24 +2870,33 @@ func WithRequestEditorFn(fn RequestEditorFn) ClientOption {
 // The interface specification for the client above.
 type ClientInterface interface {
 
+	// Docs Interactive API reference
+	//
+	// Swagger UI (from the swaggo/gin-swagger Go module) over the served /openapi.json, with "try it out" against this service (same origin). GET /docs redirects here. Open without a token; the /v1 operations it calls need one when the service has tokens (Authorize).
+	//
+	// Corresponds with GET /docs/index.html (the `Docs` operationId).
+	Docs(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error)
+
 	// Health Liveness
+	//
+	// 200 while the process serves HTTP (liveness probe); it does not check readiness. Not under authentication.
 	//
 	// Corresponds with GET /healthz (the `Health` operationId).
 	Health(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error)
 
-	// GetMetrics Prometheus metrics
+	// Metrics Prometheus metrics
 	//
 	// Request counts and latency by route, method and status, requests in flight, problem responses by type, build information, Go runtime and process metrics, in the Prometheus text exposition format. Not under authentication.
 	//
-	// Corresponds with GET /metrics (the `GetMetrics` operationId).
-	GetMetrics(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error)
+	// Corresponds with GET /metrics (the `Metrics` operationId).
+	Metrics(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error)
 
-	// GetReadyz Readiness
+	// Readiness Readiness
 	//
 	// 200 while the service takes traffic; 503 problem+json once shutdown has begun, so that load balancers stop sending requests.
 	//
-	// Corresponds with GET /readyz (the `GetReadyz` operationId).
-	GetReadyz(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error)
+	// Corresponds with GET /readyz (the `Readiness` operationId).
+	Readiness(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error)
 
 	// GasComponents The gas component catalogue
 	//
@@ -2950,13 +2959,34 @@ type ClientInterface interface {
 	// Corresponds with POST /v1/stage/size/batch (the `SizeStageBatch` operationId).
 	SizeStageBatch(ctx context.Context, body SizeStageBatchJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error)
 
-	// GetVersion Build and model version
+	// Version Build and model version
 	//
-	// Corresponds with GET /version (the `GetVersion` operationId).
-	GetVersion(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error)
+	// The build (version, commit, Go toolchain) and the physics model version that answer. Not under authentication.
+	//
+	// Corresponds with GET /version (the `Version` operationId).
+	Version(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error)
+}
+
+// Docs Interactive API reference
+//
+// Swagger UI (from the swaggo/gin-swagger Go module) over the served /openapi.json, with "try it out" against this service (same origin). GET /docs redirects here. Open without a token; the /v1 operations it calls need one when the service has tokens (Authorize).
+//
+// Corresponds with GET /docs/index.html (the `Docs` operationId).
+func (c *Client) Docs(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error) {
+	req, err := NewDocsRequest(c.Server)
+	if err != nil {
+		return nil, err
+	}
+	req = req.WithContext(ctx)
+	if err := c.applyEditors(ctx, req, reqEditors); err != nil {
+		return nil, err
+	}
+	return c.Client.Do(req)
 }
 
 // Health Liveness
+//
+// 200 while the process serves HTTP (liveness probe); it does not check readiness. Not under authentication.
 //
 // Corresponds with GET /healthz (the `Health` operationId).
 func (c *Client) Health(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error) {
@@ -2971,13 +3001,13 @@ func (c *Client) Health(ctx context.Context, reqEditors ...RequestEditorFn) (*ht
 	return c.Client.Do(req)
 }
 
-// GetMetrics Prometheus metrics
+// Metrics Prometheus metrics
 //
 // Request counts and latency by route, method and status, requests in flight, problem responses by type, build information, Go runtime and process metrics, in the Prometheus text exposition format. Not under authentication.
 //
-// Corresponds with GET /metrics (the `GetMetrics` operationId).
-func (c *Client) GetMetrics(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error) {
-	req, err := NewGetMetricsRequest(c.Server)
+// Corresponds with GET /metrics (the `Metrics` operationId).
+func (c *Client) Metrics(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error) {
+	req, err := NewMetricsRequest(c.Server)
 	if err != nil {
 		return nil, err
 	}
@@ -2988,13 +3018,13 @@ func (c *Client) GetMetrics(ctx context.Context, reqEditors ...RequestEditorFn) 
 	return c.Client.Do(req)
 }
 
-// GetReadyz Readiness
+// Readiness Readiness
 //
 // 200 while the service takes traffic; 503 problem+json once shutdown has begun, so that load balancers stop sending requests.
 //
-// Corresponds with GET /readyz (the `GetReadyz` operationId).
-func (c *Client) GetReadyz(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error) {
-	req, err := NewGetReadyzRequest(c.Server)
+// Corresponds with GET /readyz (the `Readiness` operationId).
+func (c *Client) Readiness(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error) {
+	req, err := NewReadinessRequest(c.Server)
 	if err != nil {
 		return nil, err
 	}
@@ -3136,11 +3166,13 @@ func (c *Client) SizeStageBatch(ctx context.Context, body SizeStageBatchJSONRequ
 	return c.Client.Do(req)
 }
 
-// GetVersion Build and model version
+// Version Build and model version
 //
-// Corresponds with GET /version (the `GetVersion` operationId).
-func (c *Client) GetVersion(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error) {
-	req, err := NewGetVersionRequest(c.Server)
+// The build (version, commit, Go toolchain) and the physics model version that answer. Not under authentication.
+//
+// Corresponds with GET /version (the `Version` operationId).
+func (c *Client) Version(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error) {
+	req, err := NewVersionRequest(c.Server)
 	if err != nil {
 		return nil, err
 	}
@@ -3149,6 +3181,33 @@ func (c *Client) GetVersion(ctx context.Context, reqEditors ...RequestEditorFn) 
 		return nil, err
 	}
 	return c.Client.Do(req)
+}
+
+// NewDocsRequest constructs an http.Request for the Docs method
+func NewDocsRequest(server string) (*http.Request, error) {
+	var err error
+
+	serverURL, err := url.Parse(server)
+	if err != nil {
+		return nil, err
+	}
+
+	operationPath := fmt.Sprintf("/docs/index.html")
+	if operationPath[0] == '/' {
+		operationPath = "." + operationPath
+	}
+
+	queryURL, err := serverURL.Parse(operationPath)
+	if err != nil {
+		return nil, err
+	}
+
+	req, err := http.NewRequest(http.MethodGet, queryURL.String(), nil)
+	if err != nil {
+		return nil, err
+	}
+
+	return req, nil
 }
 
 // NewHealthRequest constructs an http.Request for the Health method
@@ -3178,8 +3237,8 @@ func NewHealthRequest(server string) (*http.Request, error) {
 	return req, nil
 }
 
-// NewGetMetricsRequest constructs an http.Request for the GetMetrics method
-func NewGetMetricsRequest(server string) (*http.Request, error) {
+// NewMetricsRequest constructs an http.Request for the Metrics method
+func NewMetricsRequest(server string) (*http.Request, error) {
 	var err error
 
 	serverURL, err := url.Parse(server)
@@ -3205,8 +3264,8 @@ func NewGetMetricsRequest(server string) (*http.Request, error) {
 	return req, nil
 }
 
-// NewGetReadyzRequest constructs an http.Request for the GetReadyz method
-func NewGetReadyzRequest(server string) (*http.Request, error) {
+// NewReadinessRequest constructs an http.Request for the Readiness method
+func NewReadinessRequest(server string) (*http.Request, error) {
 	var err error
 
 	serverURL, err := url.Parse(server)
@@ -3379,8 +3438,8 @@ func NewSizeStageBatchRequestWithBody(server string, contentType string, body io
 	return req, nil
 }
 
-// NewGetVersionRequest constructs an http.Request for the GetVersion method
-func NewGetVersionRequest(server string) (*http.Request, error) {
+// NewVersionRequest constructs an http.Request for the Version method
+func NewVersionRequest(server string) (*http.Request, error) {
 	var err error
 
 	serverURL, err := url.Parse(server)
@@ -3450,30 +3509,41 @@ func WithBaseURL(baseURL string) ClientOption {
 // ClientWithResponsesInterface is the interface specification for the client with responses above.
 type ClientWithResponsesInterface interface {
 
+	// DocsWithResponse Interactive API reference
+	//
+	// Swagger UI (from the swaggo/gin-swagger Go module) over the served /openapi.json, with "try it out" against this service (same origin). GET /docs redirects here. Open without a token; the /v1 operations it calls need one when the service has tokens (Authorize).
+	//
+	// Returns a wrapper object for the known response body format(s).
+	//
+	// Corresponds with GET /docs/index.html (the `Docs` operationId).
+	DocsWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*DocsResponse, error)
+
 	// HealthWithResponse Liveness
+	//
+	// 200 while the process serves HTTP (liveness probe); it does not check readiness. Not under authentication.
 	//
 	// Returns a wrapper object for the known response body format(s).
 	//
 	// Corresponds with GET /healthz (the `Health` operationId).
 	HealthWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*HealthResponse, error)
 
-	// GetMetricsWithResponse Prometheus metrics
+	// MetricsWithResponse Prometheus metrics
 	//
 	// Request counts and latency by route, method and status, requests in flight, problem responses by type, build information, Go runtime and process metrics, in the Prometheus text exposition format. Not under authentication.
 	//
 	// Returns a wrapper object for the known response body format(s).
 	//
-	// Corresponds with GET /metrics (the `GetMetrics` operationId).
-	GetMetricsWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*GetMetricsResponse, error)
+	// Corresponds with GET /metrics (the `Metrics` operationId).
+	MetricsWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*MetricsResponse, error)
 
-	// GetReadyzWithResponse Readiness
+	// ReadinessWithResponse Readiness
 	//
 	// 200 while the service takes traffic; 503 problem+json once shutdown has begun, so that load balancers stop sending requests.
 	//
 	// Returns a wrapper object for the known response body format(s).
 	//
-	// Corresponds with GET /readyz (the `GetReadyz` operationId).
-	GetReadyzWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*GetReadyzResponse, error)
+	// Corresponds with GET /readyz (the `Readiness` operationId).
+	ReadinessWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*ReadinessResponse, error)
 
 	// GasComponentsWithResponse The gas component catalogue
 	//
@@ -3538,12 +3608,48 @@ type ClientWithResponsesInterface interface {
 	// Corresponds with POST /v1/stage/size/batch (the `SizeStageBatch` operationId).
 	SizeStageBatchWithResponse(ctx context.Context, body SizeStageBatchJSONRequestBody, reqEditors ...RequestEditorFn) (*SizeStageBatchResponse, error)
 
-	// GetVersionWithResponse Build and model version
+	// VersionWithResponse Build and model version
+	//
+	// The build (version, commit, Go toolchain) and the physics model version that answer. Not under authentication.
 	//
 	// Returns a wrapper object for the known response body format(s).
 	//
-	// Corresponds with GET /version (the `GetVersion` operationId).
-	GetVersionWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*GetVersionResponse, error)
+	// Corresponds with GET /version (the `Version` operationId).
+	VersionWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*VersionResponse, error)
+}
+
+type DocsResponse struct {
+	Body         []byte
+	HTTPResponse *http.Response
+}
+
+// GetBody returns the raw response body bytes
+func (r DocsResponse) GetBody() []byte {
+	return r.Body
+}
+
+// Status returns HTTPResponse.Status
+func (r DocsResponse) Status() string {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.Status
+	}
+	return http.StatusText(0)
+}
+
+// StatusCode returns HTTPResponse.StatusCode
+func (r DocsResponse) StatusCode() int {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.StatusCode
+	}
+	return 0
+}
+
+// ContentType is a convenience method to retrieve the Content-Type value from the HTTP response headers
+func (r DocsResponse) ContentType() string {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.Header.Get("Content-Type")
+	}
+	return ""
 }
 
 type HealthResponse struct {
@@ -3587,18 +3693,18 @@ func (r HealthResponse) ContentType() string {
 	return ""
 }
 
-type GetMetricsResponse struct {
+type MetricsResponse struct {
 	Body         []byte
 	HTTPResponse *http.Response
 }
 
 // GetBody returns the raw response body bytes
-func (r GetMetricsResponse) GetBody() []byte {
+func (r MetricsResponse) GetBody() []byte {
 	return r.Body
 }
 
 // Status returns HTTPResponse.Status
-func (r GetMetricsResponse) Status() string {
+func (r MetricsResponse) Status() string {
 	if r.HTTPResponse != nil {
 		return r.HTTPResponse.Status
 	}
@@ -3606,7 +3712,7 @@ func (r GetMetricsResponse) Status() string {
 }
 
 // StatusCode returns HTTPResponse.StatusCode
-func (r GetMetricsResponse) StatusCode() int {
+func (r MetricsResponse) StatusCode() int {
 	if r.HTTPResponse != nil {
 		return r.HTTPResponse.StatusCode
 	}
@@ -3614,14 +3720,14 @@ func (r GetMetricsResponse) StatusCode() int {
 }
 
 // ContentType is a convenience method to retrieve the Content-Type value from the HTTP response headers
-func (r GetMetricsResponse) ContentType() string {
+func (r MetricsResponse) ContentType() string {
 	if r.HTTPResponse != nil {
 		return r.HTTPResponse.Header.Get("Content-Type")
 	}
 	return ""
 }
 
-type GetReadyzResponse struct {
+type ReadinessResponse struct {
 	Body         []byte
 	HTTPResponse *http.Response
 	// JSON200 the response for an HTTP 200 `application/json` response
@@ -3631,22 +3737,22 @@ type GetReadyzResponse struct {
 }
 
 // GetJSON200 returns the response for an HTTP 200 `application/json` response
-func (r GetReadyzResponse) GetJSON200() *ApiHealth {
+func (r ReadinessResponse) GetJSON200() *ApiHealth {
 	return r.JSON200
 }
 
 // GetApplicationproblemJSON503 returns the response for an HTTP 503 `application/problem+json` response
-func (r GetReadyzResponse) GetApplicationproblemJSON503() *ApiProblem {
+func (r ReadinessResponse) GetApplicationproblemJSON503() *ApiProblem {
 	return r.ApplicationproblemJSON503
 }
 
 // GetBody returns the raw response body bytes
-func (r GetReadyzResponse) GetBody() []byte {
+func (r ReadinessResponse) GetBody() []byte {
 	return r.Body
 }
 
 // Status returns HTTPResponse.Status
-func (r GetReadyzResponse) Status() string {
+func (r ReadinessResponse) Status() string {
 	if r.HTTPResponse != nil {
 		return r.HTTPResponse.Status
 	}
@@ -3654,7 +3760,7 @@ func (r GetReadyzResponse) Status() string {
 }
 
 // StatusCode returns HTTPResponse.StatusCode
-func (r GetReadyzResponse) StatusCode() int {
+func (r ReadinessResponse) StatusCode() int {
 	if r.HTTPResponse != nil {
 		return r.HTTPResponse.StatusCode
 	}
@@ -3662,7 +3768,7 @@ func (r GetReadyzResponse) StatusCode() int {
 }
 
 // ContentType is a convenience method to retrieve the Content-Type value from the HTTP response headers
-func (r GetReadyzResponse) ContentType() string {
+func (r ReadinessResponse) ContentType() string {
 	if r.HTTPResponse != nil {
 		return r.HTTPResponse.Header.Get("Content-Type")
 	}
@@ -4029,7 +4135,7 @@ func (r SizeStageBatchResponse) ContentType() string {
 	return ""
 }
 
-type GetVersionResponse struct {
+type VersionResponse struct {
 	Body         []byte
 	HTTPResponse *http.Response
 	// JSON200 the response for an HTTP 200 `application/json` response
@@ -4037,17 +4143,17 @@ type GetVersionResponse struct {
 }
 
 // GetJSON200 returns the response for an HTTP 200 `application/json` response
-func (r GetVersionResponse) GetJSON200() *ApiVersionInfo {
+func (r VersionResponse) GetJSON200() *ApiVersionInfo {
 	return r.JSON200
 }
 
 // GetBody returns the raw response body bytes
-func (r GetVersionResponse) GetBody() []byte {
+func (r VersionResponse) GetBody() []byte {
 	return r.Body
 }
 
 // Status returns HTTPResponse.Status
-func (r GetVersionResponse) Status() string {
+func (r VersionResponse) Status() string {
 	if r.HTTPResponse != nil {
 		return r.HTTPResponse.Status
 	}
@@ -4055,7 +4161,7 @@ func (r GetVersionResponse) Status() string {
 }
 
 // StatusCode returns HTTPResponse.StatusCode
-func (r GetVersionResponse) StatusCode() int {
+func (r VersionResponse) StatusCode() int {
 	if r.HTTPResponse != nil {
 		return r.HTTPResponse.StatusCode
 	}
@@ -4063,14 +4169,31 @@ func (r GetVersionResponse) StatusCode() int {
 }
 
 // ContentType is a convenience method to retrieve the Content-Type value from the HTTP response headers
-func (r GetVersionResponse) ContentType() string {
+func (r VersionResponse) ContentType() string {
 	if r.HTTPResponse != nil {
 		return r.HTTPResponse.Header.Get("Content-Type")
 	}
 	return ""
 }
 
+// DocsWithResponse Interactive API reference
+//
+// Swagger UI (from the swaggo/gin-swagger Go module) over the served /openapi.json, with "try it out" against this service (same origin). GET /docs redirects here. Open without a token; the /v1 operations it calls need one when the service has tokens (Authorize).
+//
+// Returns a wrapper object for the known response body format(s).
+//
+// Corresponds with GET /docs/index.html (the `Docs` operationId).
+func (c *ClientWithResponses) DocsWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*DocsResponse, error) {
+	rsp, err := c.Docs(ctx, reqEditors...)
+	if err != nil {
+		return nil, err
+	}
+	return ParseDocsResponse(rsp)
+}
+
 // HealthWithResponse Liveness
+//
+// 200 while the process serves HTTP (liveness probe); it does not check readiness. Not under authentication.
 //
 // Returns a wrapper object for the known response body format(s).
 //
@@ -4083,34 +4206,34 @@ func (c *ClientWithResponses) HealthWithResponse(ctx context.Context, reqEditors
 	return ParseHealthResponse(rsp)
 }
 
-// GetMetricsWithResponse Prometheus metrics
+// MetricsWithResponse Prometheus metrics
 //
 // Request counts and latency by route, method and status, requests in flight, problem responses by type, build information, Go runtime and process metrics, in the Prometheus text exposition format. Not under authentication.
 //
 // Returns a wrapper object for the known response body format(s).
 //
-// Corresponds with GET /metrics (the `GetMetrics` operationId).
-func (c *ClientWithResponses) GetMetricsWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*GetMetricsResponse, error) {
-	rsp, err := c.GetMetrics(ctx, reqEditors...)
+// Corresponds with GET /metrics (the `Metrics` operationId).
+func (c *ClientWithResponses) MetricsWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*MetricsResponse, error) {
+	rsp, err := c.Metrics(ctx, reqEditors...)
 	if err != nil {
 		return nil, err
 	}
-	return ParseGetMetricsResponse(rsp)
+	return ParseMetricsResponse(rsp)
 }
 
-// GetReadyzWithResponse Readiness
+// ReadinessWithResponse Readiness
 //
 // 200 while the service takes traffic; 503 problem+json once shutdown has begun, so that load balancers stop sending requests.
 //
 // Returns a wrapper object for the known response body format(s).
 //
-// Corresponds with GET /readyz (the `GetReadyz` operationId).
-func (c *ClientWithResponses) GetReadyzWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*GetReadyzResponse, error) {
-	rsp, err := c.GetReadyz(ctx, reqEditors...)
+// Corresponds with GET /readyz (the `Readiness` operationId).
+func (c *ClientWithResponses) ReadinessWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*ReadinessResponse, error) {
+	rsp, err := c.Readiness(ctx, reqEditors...)
 	if err != nil {
 		return nil, err
 	}
-	return ParseGetReadyzResponse(rsp)
+	return ParseReadinessResponse(rsp)
 }
 
 // GasComponentsWithResponse The gas component catalogue
@@ -4218,17 +4341,35 @@ func (c *ClientWithResponses) SizeStageBatchWithResponse(ctx context.Context, bo
 	return ParseSizeStageBatchResponse(rsp)
 }
 
-// GetVersionWithResponse Build and model version
+// VersionWithResponse Build and model version
+//
+// The build (version, commit, Go toolchain) and the physics model version that answer. Not under authentication.
 //
 // Returns a wrapper object for the known response body format(s).
 //
-// Corresponds with GET /version (the `GetVersion` operationId).
-func (c *ClientWithResponses) GetVersionWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*GetVersionResponse, error) {
-	rsp, err := c.GetVersion(ctx, reqEditors...)
+// Corresponds with GET /version (the `Version` operationId).
+func (c *ClientWithResponses) VersionWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*VersionResponse, error) {
+	rsp, err := c.Version(ctx, reqEditors...)
 	if err != nil {
 		return nil, err
 	}
-	return ParseGetVersionResponse(rsp)
+	return ParseVersionResponse(rsp)
+}
+
+// ParseDocsResponse parses an HTTP response from a DocsWithResponse call
+func ParseDocsResponse(rsp *http.Response) (*DocsResponse, error) {
+	bodyBytes, err := io.ReadAll(rsp.Body)
+	defer func() { _ = rsp.Body.Close() }()
+	if err != nil {
+		return nil, err
+	}
+
+	response := &DocsResponse{
+		Body:         bodyBytes,
+		HTTPResponse: rsp,
+	}
+
+	return response, nil
 }
 
 // ParseHealthResponse parses an HTTP response from a HealthWithResponse call
@@ -4257,15 +4398,15 @@ func ParseHealthResponse(rsp *http.Response) (*HealthResponse, error) {
 	return response, nil
 }
 
-// ParseGetMetricsResponse parses an HTTP response from a GetMetricsWithResponse call
-func ParseGetMetricsResponse(rsp *http.Response) (*GetMetricsResponse, error) {
+// ParseMetricsResponse parses an HTTP response from a MetricsWithResponse call
+func ParseMetricsResponse(rsp *http.Response) (*MetricsResponse, error) {
 	bodyBytes, err := io.ReadAll(rsp.Body)
 	defer func() { _ = rsp.Body.Close() }()
 	if err != nil {
 		return nil, err
 	}
 
-	response := &GetMetricsResponse{
+	response := &MetricsResponse{
 		Body:         bodyBytes,
 		HTTPResponse: rsp,
 	}
@@ -4273,15 +4414,15 @@ func ParseGetMetricsResponse(rsp *http.Response) (*GetMetricsResponse, error) {
 	return response, nil
 }
 
-// ParseGetReadyzResponse parses an HTTP response from a GetReadyzWithResponse call
-func ParseGetReadyzResponse(rsp *http.Response) (*GetReadyzResponse, error) {
+// ParseReadinessResponse parses an HTTP response from a ReadinessWithResponse call
+func ParseReadinessResponse(rsp *http.Response) (*ReadinessResponse, error) {
 	bodyBytes, err := io.ReadAll(rsp.Body)
 	defer func() { _ = rsp.Body.Close() }()
 	if err != nil {
 		return nil, err
 	}
 
-	response := &GetReadyzResponse{
+	response := &ReadinessResponse{
 		Body:         bodyBytes,
 		HTTPResponse: rsp,
 	}
@@ -4606,15 +4747,15 @@ func ParseSizeStageBatchResponse(rsp *http.Response) (*SizeStageBatchResponse, e
 	return response, nil
 }
 
-// ParseGetVersionResponse parses an HTTP response from a GetVersionWithResponse call
-func ParseGetVersionResponse(rsp *http.Response) (*GetVersionResponse, error) {
+// ParseVersionResponse parses an HTTP response from a VersionWithResponse call
+func ParseVersionResponse(rsp *http.Response) (*VersionResponse, error) {
 	bodyBytes, err := io.ReadAll(rsp.Body)
 	defer func() { _ = rsp.Body.Close() }()
 	if err != nil {
 		return nil, err
 	}
 
-	response := &GetVersionResponse{
+	response := &VersionResponse{
 		Body:         bodyBytes,
 		HTTPResponse: rsp,
 	}
