@@ -25,7 +25,8 @@ import (
 // what it accepted (into the same values), and refuse what its typed pass
 // refused. The intended differences are duplicate keys (refused now) and
 // the pointers and words of type errors (now with array indexes and
-// "out of range" / "must be an integer"); echoed input is clipped in both.
+// "out of range" / "must be an integer"); echoed input is clipped in both,
+// and an unknown key longer than maxEcho is pointed at by its object.
 
 // legacyDecode is the former decodeStrict after reading the body.
 func legacyDecode(body []byte, dst any) error {
@@ -104,6 +105,9 @@ func legacyUnknownFields(raw any, t reflect.Type, ptr string) fieldErrors {
 			ft, ok := fields[k]
 			p := ptr + "/" + escapePointer(k)
 			if !ok {
+				if len(k) > maxEcho { // intended change: a long key is not echoed in the pointer
+					p = ptr
+				}
 				out = append(out, FieldProblem{Pointer: p, Detail: unknownDetail(k, names, sorted)})
 				continue
 			}

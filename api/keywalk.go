@@ -251,20 +251,28 @@ func (w *walker) object(s *shape) {
 				}
 			}
 		}
+		if len(key) > maxEcho {
+			// a problem with this key points at its object: its own
+			// pointer would echo the whole key
+			w.path = w.path[:depth]
+		}
 		switch {
 		case dup:
 			w.add(kindDuplicate, "duplicate key "+strconv.Quote(clip(string(key)))+": each key may appear once in an object (the service does not guess which one you meant)")
 			w.skip()
 		case s.kind == shapeMap:
+			w.path = append(w.path[:depth], segment{key: key, idx: -1})
 			w.value(s.elem)
 		default:
 			if f, ok := s.fields[string(key)]; ok {
+				w.path = append(w.path[:depth], segment{key: key, idx: -1})
 				w.value(f)
 			} else {
 				w.add(kindUnknown, unknownDetail(string(key), s.order, s.names))
 				w.skip()
 			}
 		}
+		w.path = append(w.path[:depth], segment{idx: -1})
 		if len(w.errs) > n0 {
 			groups = append(groups, keyGroup{key: key, start: n0, end: len(w.errs)})
 		}
