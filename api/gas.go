@@ -71,7 +71,10 @@ type PropertiesResponse struct {
 	Notes          []string      `json:"notes" validate:"required"`
 	ReferenceState string        `json:"reference_state" validate:"required"`
 	Provenance     ProvenanceOut `json:"provenance" validate:"required"`
-	Cautions       string        `json:"cautions" validate:"required"`
+	// Cautions are short sentences, as in a stage answer: what the numbers
+	// are, and that the manufacturer, the standards, local codes and
+	// licensed engineering practice govern.
+	Cautions []string `json:"cautions" validate:"required"`
 }
 
 // ComponentFraction is one component's mole fraction.

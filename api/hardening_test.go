@@ -2,6 +2,7 @@ package api_test
 
 import (
 	"bufio"
+	"encoding/json"
 	"fmt"
 	"io"
 	"net"
@@ -152,5 +153,27 @@ func TestLongInputNotEchoed(t *testing.T) {
 			assert.Less(t, w.Body.Len(), 4096, "the answer echoes the input: %.300s", w.Body.String())
 			assert.Contains(t, w.Body.String(), "bytes)")
 		})
+	}
+}
+
+// TestGasPropertiesCautionsList (issue 13 item 15): /v1/gas/properties
+// answers cautions as a list of sentences, as the stage answers do.
+func TestGasPropertiesCautionsList(t *testing.T) {
+	for _, path := range []string{"/v1/gas/properties", "/v1/stage/size"} {
+		body := propsBody
+		if path == "/v1/stage/size" {
+			body = demoDuty
+		}
+		w := do(newRouter(t), http.MethodPost, path, body)
+		require.Equal(t, http.StatusOK, w.Code, w.Body.String())
+		var out struct {
+			Cautions []string `json:"cautions"`
+		}
+		require.NoError(t, json.Unmarshal(w.Body.Bytes(), &out), path)
+		require.NotEmpty(t, out.Cautions, path)
+		for _, c := range out.Cautions {
+			assert.NotEmpty(t, c, path)
+		}
+		assert.Contains(t, strings.Join(out.Cautions, " "), "manufacturer", path)
 	}
 }

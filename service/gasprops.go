@@ -24,7 +24,7 @@ type PropertiesResult struct {
 	WaterDewPoint float64
 	Notes         []string
 	Provenance    Provenance
-	Cautions      string
+	Cautions      []string
 }
 
 // GasProperties returns the properties of gas g at temperature t (K) and
@@ -83,7 +83,7 @@ func (s *Service) GasProperties(ctx context.Context, g GasInput, t, p float64) (
 			res.Notes = append(res.Notes, w.Message)
 		}
 	}
-	res.Cautions = Cautions
+	res.Cautions = Cautions()
 	return res, nil
 }
 

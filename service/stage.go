@@ -31,12 +31,18 @@ const (
 	DefaultPowerInputFactor = 1.0
 )
 
-// Cautions is carried by every result: what the numbers are and are not.
-const Cautions = "Preliminary engineering estimate from published methods, not a machine selection or guarantee. " +
-	"Centrifugal compressors can fail violently and handle toxic, flammable or asphyxiating gases: the machine's " +
-	"manufacturer, the applicable standards (API 617 / ISO 10439 and their peers), local codes and licensed engineering " +
-	"practice govern overspeed and trip settings, overpressure protection and relief, surge control, discharge " +
-	"temperature limits, materials and sealing. Confirm every figure with the manufacturer before use."
+// Cautions is carried by every gas-property result, one sentence an
+// entry: what the numbers are and are not.
+func Cautions() []string {
+	return []string{
+		"Preliminary engineering estimate from published methods, not a machine selection or guarantee.",
+		"Centrifugal compressors can fail violently and handle toxic, flammable or asphyxiating gases: the machine's " +
+			"manufacturer, the applicable standards (API 617 / ISO 10439 and their peers), local codes and licensed engineering " +
+			"practice govern overspeed and trip settings, overpressure protection and relief, surge control, discharge " +
+			"temperature limits, materials and sealing.",
+		"Confirm every figure with the manufacturer before use.",
+	}
+}
 
 // Service runs the use cases. It holds no mutable state and is safe for
 // concurrent use.

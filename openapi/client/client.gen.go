@@ -1196,7 +1196,10 @@ type ApiPropertiesRequest_Temperature struct {
 
 // ApiPropertiesResponse defines model for api.PropertiesResponse.
 type ApiPropertiesResponse struct {
-	Cautions string `json:"cautions"`
+	// Cautions Cautions are short sentences, as in a stage answer: what the numbers
+	// are, and that the manufacturer, the standards, local codes and
+	// licensed engineering practice govern.
+	Cautions []string `json:"cautions"`
 
 	// Composition Composition is the normalised mole-fraction composition.
 	Composition []ApiComponentFraction `json:"composition"`
