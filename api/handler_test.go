@@ -144,7 +144,15 @@ func TestStageProblems(t *testing.T) {
 		{name: "slip factor 1.5", body: duty(t, demoDuty, set("impeller.slip_factor", 1.5)),
 			status: 422, kind: "unprocessable", pointers: []string{"/impeller/slip_factor"}, detail: "slip factor"},
 		{name: "mechanical efficiency 1.5", body: duty(t, demoDuty, set("mechanical_efficiency", 1.5)),
-			status: 422, kind: "unprocessable", pointers: []string{"/mechanical_efficiency"}, detail: "(0, 1]"},
+			status: 422, kind: "unprocessable", pointers: []string{"/mechanical_efficiency"}, detail: "[0.8, 1]"},
+		// issue 13 item 6: absurd mechanical losses or efficiency (were a 200 with no warning)
+		{name: "mechanical efficiency 1e-9", body: duty(t, demoDuty, set("mechanical_efficiency", 1e-9)),
+			status: 422, kind: "unprocessable", pointers: []string{"/mechanical_efficiency"}, detail: "out of range"},
+		{name: "mechanical losses 1e12 W", body: duty(t, demoDuty, del("mechanical_efficiency"), set("mechanical_losses", 1e12)),
+			status: 422, kind: "unprocessable", pointers: []string{"/mechanical_losses"}, detail: "out of range"},
+		// issue 13 item 7: gamma 1 is outside the schema (exclusive minimum), 1.6667 (5/3 to four decimals) is accepted
+		{name: "gamma 1", body: duty(t, demoDuty, set("gas.gamma", 1)),
+			status: 422, kind: "unprocessable", pointers: []string{"/gas/gamma"}, detail: "gamma"},
 		{name: "override in the wrong order", body: duty(t, demoDuty, set("limit_overrides", map[string]any{"tip-speed": map[string]any{"warning": 400, "limit": 350}})),
 			status: 422, kind: "unprocessable", pointers: []string{"/limit_overrides/tip-speed"}, detail: "must not be below the warning level"},
 		{name: "tip diameter too small for the head", body: duty(t, demoDuty, del("speed"), set("tip_diameter", "40 mm")),

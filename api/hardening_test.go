@@ -177,3 +177,27 @@ func TestGasPropertiesCautionsList(t *testing.T) {
 		assert.Contains(t, strings.Join(out.Cautions, " "), "manufacturer", path)
 	}
 }
+
+// TestGammaSchemaAndServerAgree (issue 13 item 7): the document refuses
+// gamma 1 (exclusive minimum; the server answers 422: R = cp (γ-1)/γ would
+// be 0) and allows 1.6667, which the server now sizes (5/3 to four
+// decimals; it answered 422).
+func TestGammaSchemaAndServerAgree(t *testing.T) {
+	doc := servedOpenAPI3(t)
+	g := doc.Components.Schemas["api.GasSpec"].Value.Properties["gamma"].Value
+	require.NotNil(t, g.Min)
+	assert.Equal(t, 1.0, *g.Min)
+	require.NotNil(t, g.ExclusiveMin.Bool)
+	assert.True(t, *g.ExclusiveMin.Bool, "gamma 1 is refused by the server")
+	require.NotNil(t, g.Max)
+	assert.Equal(t, 1.6667, *g.Max)
+	assert.False(t, g.ExclusiveMax.Bool != nil && *g.ExclusiveMax.Bool)
+
+	h := newRouter(t)
+	w := postStage(h, strings.Replace(demoDuty, `"gamma": 1.4`, `"gamma": 1.6667`, 1))
+	assert.Equal(t, http.StatusOK, w.Code, w.Body.String())
+	p := requireProblem(t, postStage(h, strings.Replace(demoDuty, `"gamma": 1.4`, `"gamma": 1.6668`, 1)), http.StatusUnprocessableEntity, "unprocessable")
+	assert.Equal(t, []string{"/gas/gamma"}, p.pointers())
+	p = requireProblem(t, postStage(h, strings.Replace(demoDuty, `"cp": 1006`, `"cp": 1e300`, 1)), http.StatusUnprocessableEntity, "unprocessable")
+	assert.Contains(t, p.details(), "too large", "issue 13 item 8")
+}

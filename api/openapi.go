@@ -28,6 +28,7 @@ func openAPI3(spec []byte) ([]byte, error) {
 	if doc3.Components != nil {
 		for _, s := range doc3.Components.Schemas {
 			widenQuantities(s.Value)
+			exclusiveMinimums(s.Value)
 			doubleNumbers(s.Value, map[*openapi3.Schema]bool{})
 		}
 	}
@@ -206,6 +207,29 @@ func transportErrors(doc *openapi3.T) {
 				Description: &desc,
 				Content:     openapi3.NewContentWithSchema(openapi3.NewStringSchema(), []string{"text/plain"}),
 			}})
+		}
+	}
+}
+
+// exclusiveMinimums turns a property's x-exclusive-minimum extension
+// (struct tag extensions:"x-exclusive-minimum=true"; swag has no tag for
+// it) into exclusiveMinimum: the minimum itself is refused.
+func exclusiveMinimums(s *openapi3.Schema) {
+	if s == nil {
+		return
+	}
+	for _, p := range s.Properties {
+		if p == nil || p.Value == nil {
+			continue
+		}
+		if v, ok := p.Value.Extensions["x-exclusive-minimum"]; ok {
+			if v == true || v == "true" {
+				p.Value.ExclusiveMin = openapi3.ExclusiveBound{Bool: openapi3.Ptr(true)}
+			}
+			delete(p.Value.Extensions, "x-exclusive-minimum")
+			if len(p.Value.Extensions) == 0 {
+				p.Value.Extensions = nil
+			}
 		}
 	}
 }

@@ -27,10 +27,11 @@ type StageRequest struct {
 	// (2013) correlation in flow coefficient and tip Mach number.
 	Efficiency *EfficiencySpec `json:"efficiency,omitempty"`
 	// MechanicalEfficiency is gas power over shaft power (bearing and seal
-	// losses); default 0.98.
-	MechanicalEfficiency *float64 `json:"mechanical_efficiency,omitempty" binding:"excluded_with=MechanicalLosses" format:"double" minimum:"0" maximum:"1" example:"0.98"`
+	// losses), 0.8 to 1; default 0.98.
+	MechanicalEfficiency *float64 `json:"mechanical_efficiency,omitempty" binding:"excluded_with=MechanicalLosses" format:"double" minimum:"0.8" maximum:"1" example:"0.98"`
 	// MechanicalLosses are the bearing, seal and gear losses, W (or "kW"),
-	// instead of mechanical_efficiency: shaft power = gas power + losses.
+	// instead of mechanical_efficiency: shaft power = gas power + losses;
+	// at most a quarter of the gas power.
 	MechanicalLosses *Quantity `json:"mechanical_losses,omitempty" swaggertype:"primitive,number" format:"double" example:"12000" extensions:"x-unit-string=power"`
 	// Impeller is the blading and inlet; leave it (or any of its fields)
 	// out for the defaults of a backswept process impeller, each recorded
@@ -78,8 +79,9 @@ type GasSpec struct {
 	Model string `json:"model" binding:"required,oneof=ideal-constant ideal peng-robinson srk" enums:"ideal-constant,ideal,peng-robinson,srk" example:"ideal-constant"`
 	// Cp is the isobaric specific heat capacity for "ideal-constant", J/(kg K).
 	Cp *float64 `json:"cp,omitempty" format:"double" minimum:"0" example:"1005"`
-	// Gamma is the ratio of specific heats cp/cv for "ideal-constant".
-	Gamma *float64 `json:"gamma,omitempty" format:"double" minimum:"1" maximum:"1.6667" example:"1.4"`
+	// Gamma is the ratio of specific heats cp/cv for "ideal-constant":
+	// above 1, at most 5/3 (1.6667 accepted).
+	Gamma *float64 `json:"gamma,omitempty" format:"double" minimum:"1" maximum:"1.6667" extensions:"x-exclusive-minimum=true" example:"1.4"`
 	// Composition maps component (formula or name, e.g. "CH4", "methane")
 	// to its fraction, for the "ideal", "peng-robinson" and "srk" models.
 	Composition map[string]float64 `json:"composition,omitempty" swaggertype:"object,number" example:"CH4:0.9,C2H6:0.1"`

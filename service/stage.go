@@ -23,6 +23,12 @@ const ModelVersion = "stagewright-physics 0.3.0"
 
 // Defaults applied when a duty leaves a choice open.
 const (
+	// MinMechanicalEfficiency is the least mechanical efficiency (gas
+	// power over shaft power) accepted, given or from mechanical_losses:
+	// bearing, seal and gear losses are a few per cent of the gas power,
+	// so losses of more than a quarter of it are taken for an input
+	// mistake (common practice, no source).
+	MinMechanicalEfficiency = 0.8
 	// DefaultMechanicalEfficiency is gas power over shaft power: bearing
 	// and seal losses of 1-2 % of gas power for large process machines
 	// (testdata/reference/rules-of-thumb.md §10, common practice, no source).
@@ -533,11 +539,15 @@ func power(d StageDuty, mdot, work float64, prov *Provenance) (Power, error) {
 			return Power{}, fieldErr("mechanical_losses", reason("mechanical_losses", "the mechanical losses must be a number of W, at least 0", l))
 		}
 		eta = g / (g + l)
+		if !(eta >= MinMechanicalEfficiency) {
+			return Power{}, fieldErr("mechanical_losses", reason("mechanical_losses", fmt.Sprintf(
+				"the mechanical losses are out of range: at most a quarter of the gas power (%.4g W here), a mechanical efficiency of at least %g", g/4, MinMechanicalEfficiency), l))
+		}
 	case d.MechanicalEfficiency != nil:
 		eta = *d.MechanicalEfficiency
-		if !(eta > 0 && eta <= 1) {
-			return Power{}, fieldErr("mechanical_efficiency", reason("mechanical_efficiency",
-				"the mechanical efficiency must lie in (0, 1]", eta))
+		if !(eta >= MinMechanicalEfficiency && eta <= 1) {
+			return Power{}, fieldErr("mechanical_efficiency", reason("mechanical_efficiency", fmt.Sprintf(
+				"the mechanical efficiency is out of range: it must lie in [%g, 1] (bearing, seal and gear losses of at most a quarter of the gas power)", MinMechanicalEfficiency), eta))
 		}
 	default:
 		prov.Defaults = append(prov.Defaults, Default{Field: "mechanical_efficiency", Value: "0.98",

@@ -696,7 +696,8 @@ type ApiGasSpec struct {
 	// Example: 1005
 	Cp *float64 `json:"cp,omitempty"`
 
-	// Gamma Gamma is the ratio of specific heats cp/cv for "ideal-constant".
+	// Gamma Gamma is the ratio of specific heats cp/cv for "ideal-constant":
+	// above 1, at most 5/3 (1.6667 accepted).
 	//
 	// Example: 1.4
 	Gamma *float64 `json:"gamma,omitempty"`
@@ -1348,13 +1349,14 @@ type ApiStageRequest struct {
 	LimitOverrides *map[string]ApiLevelOverrideSpec `json:"limit_overrides,omitempty"`
 
 	// MechanicalEfficiency MechanicalEfficiency is gas power over shaft power (bearing and seal
-	// losses); default 0.98.
+	// losses), 0.8 to 1; default 0.98.
 	//
 	// Example: 0.98
 	MechanicalEfficiency *float64 `json:"mechanical_efficiency,omitempty"`
 
 	// MechanicalLosses MechanicalLosses are the bearing, seal and gear losses, W (or "kW"),
-	// instead of mechanical_efficiency: shaft power = gas power + losses.
+	// instead of mechanical_efficiency: shaft power = gas power + losses;
+	// at most a quarter of the gas power.
 	MechanicalLosses *ApiStageRequest_MechanicalLosses `json:"mechanical_losses,omitempty"`
 	Options          *ApiOptionsSpec                   `json:"options,omitempty"`
 
@@ -1399,7 +1401,8 @@ type ApiStageRequest_DischargePressure struct {
 }
 
 // ApiStageRequestMechanicalLosses0 MechanicalLosses are the bearing, seal and gear losses, W (or "kW"),
-// instead of mechanical_efficiency: shaft power = gas power + losses.
+// instead of mechanical_efficiency: shaft power = gas power + losses;
+// at most a quarter of the gas power.
 //
 // Example: 12000
 type ApiStageRequestMechanicalLosses0 = float64
@@ -1408,7 +1411,8 @@ type ApiStageRequestMechanicalLosses0 = float64
 type ApiStageRequestMechanicalLosses1 = string
 
 // ApiStageRequest_MechanicalLosses MechanicalLosses are the bearing, seal and gear losses, W (or "kW"),
-// instead of mechanical_efficiency: shaft power = gas power + losses.
+// instead of mechanical_efficiency: shaft power = gas power + losses;
+// at most a quarter of the gas power.
 type ApiStageRequest_MechanicalLosses struct {
 	union json.RawMessage
 }
