@@ -201,3 +201,27 @@ func TestGammaSchemaAndServerAgree(t *testing.T) {
 	p = requireProblem(t, postStage(h, strings.Replace(demoDuty, `"cp": 1006`, `"cp": 1e300`, 1)), http.StatusUnprocessableEntity, "unprocessable")
 	assert.Contains(t, p.details(), "too large", "issue 13 item 8")
 }
+
+// TestGasPropertiesRange (issue 13 item 4): a state far outside every
+// model (CO2 at 1e12 Pa: Z 11 456; at 1 K: κ 3.9e6) is a 422 naming the
+// field and the range, not a 200.
+func TestGasPropertiesRange(t *testing.T) {
+	h := newRouter(t)
+	co2 := func(temperature, pressure string) string {
+		return `{"gas": {"model": "peng-robinson", "composition": {"CO2": 1}}, "temperature": ` + temperature + `, "pressure": ` + pressure + `}`
+	}
+	for _, tt := range []struct {
+		body, pointer, detail string
+	}{
+		{co2("300", "1e12"), "/pressure", "100 MPa"},
+		{co2("1", "1e5"), "/temperature", "K"},
+		{strings.Replace(co2("1", "1e5"), "peng-robinson", "ideal", 1), "/temperature", "out of range"},
+	} {
+		p := requireProblem(t, do(h, http.MethodPost, "/v1/gas/properties", tt.body), http.StatusUnprocessableEntity, "unprocessable")
+		assert.Equal(t, []string{tt.pointer}, p.pointers(), tt.body)
+		assert.Contains(t, p.details(), tt.detail)
+		assert.Contains(t, p.details(), "out of range")
+	}
+	w := do(h, http.MethodPost, "/v1/gas/properties", co2("300", "99e6"))
+	assert.Equal(t, http.StatusOK, w.Code, "99 MPa is inside: %s", w.Body.String())
+}
