@@ -225,3 +225,20 @@ func TestGasPropertiesRange(t *testing.T) {
 	w := do(h, http.MethodPost, "/v1/gas/properties", co2("300", "99e6"))
 	assert.Equal(t, http.StatusOK, w.Code, "99 MPa is inside: %s", w.Body.String())
 }
+
+// TestImpossibleExitWidth (issue 13 item 2): an exit meridional velocity
+// so low that the exit is wider than a quarter of the impeller (1e-9, 1, 5
+// m/s gave b2 of 1.55e9, 1.55 and 0.31 m for a D2 of about 0.3 m, with a
+// 200 and a warning) is a 422 naming the field.
+func TestImpossibleExitWidth(t *testing.T) {
+	h := newRouter(t)
+	for _, v := range []string{"1e-9", "1", "5"} {
+		body := strings.Replace(demoDuty, `"exit_meridional_velocity": 95`, `"exit_meridional_velocity": `+v, 1)
+		require.NotEqual(t, demoDuty, body)
+		p := requireProblem(t, postStage(h, body), http.StatusUnprocessableEntity, "unprocessable")
+		assert.Equal(t, []string{"/impeller/exit_meridional_velocity"}, p.pointers(), v)
+		assert.Contains(t, p.details(), "out of range", v)
+	}
+	w := postStage(h, demoDuty)
+	assert.Equal(t, http.StatusOK, w.Code, "95 m/s is a sane exit")
+}

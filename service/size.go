@@ -130,6 +130,16 @@ func (s *Service) SizeStage(ctx context.Context, d StageDuty) (StageResult, erro
 		prov.Methods = append(prov.Methods, slipMethod(d.Impeller, imp.SlipFactor))
 	}
 
+	if r := sz.Coefficients.ExitWidthRatio; !(r <= MaxExitWidthRatio) {
+		field := "flow"
+		if d.Impeller.ExitMeridionalVelocity != nil {
+			field = "impeller.exit_meridional_velocity"
+		}
+		return StageResult{}, fieldErr(field, reason("exit width ratio", fmt.Sprintf(
+			"the impeller exit would be %.3g m wide for a tip diameter of %.3g m (b2/D2 = %.3g): out of range, an impossible geometry above b2/D2 = %g; raise the exit meridional velocity or the speed, or lower the flow",
+			float64(sz.Geometry.ExitWidth), float64(sz.Geometry.TipDiameter), r, MaxExitWidthRatio), r))
+	}
+
 	res.MassFlow = mdot
 	res.SuctionVolumeFlow = sz.SuctionFlow
 	res.StandardFlows = standardFlows(model, mdot)
@@ -152,6 +162,13 @@ func (s *Service) SizeStage(ctx context.Context, d StageDuty) (StageResult, erro
 	res.Cautions = cautionsFor(model, d, &res)
 	return res, nil
 }
+
+// MaxExitWidthRatio bounds the impeller exit width b2/D2: the wide-exit
+// rule warns above 0.08 and marks the limit of practice at 0.10
+// (physics/limits); an exit wider than a quarter of the tip diameter is
+// not a centrifugal impeller at all, and the sizing refuses it (common
+// practice, no source).
+const MaxExitWidthRatio = 0.25
 
 func polytropicMethod(d StageDuty, prov *Provenance) (path.Method, error) {
 	switch d.PolytropicMethod {
