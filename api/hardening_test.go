@@ -242,3 +242,33 @@ func TestImpossibleExitWidth(t *testing.T) {
 	w := postStage(h, demoDuty)
 	assert.Equal(t, http.StatusOK, w.Code, "95 m/s is a sane exit")
 }
+
+// TestIdealModelRefusesWetSuction (issue 13 item 3): the ideal model
+// sized a liquid or two-phase suction with a 200 (propane at 300 K and
+// 20 bara: above its vapour pressure of about 10 bar at 300 K, NIST
+// WebBook, from memory; CH4/C3H8/n-C6H14 0.85/0.10/0.05 at 280 K and
+// 50 bara; water vapour at 300 K and 1 bara, far above its vapour pressure
+// of 3.5 kPa, IAPWS-IF97): now a 422 "wet or liquid gas at suction", from
+// a Peng-Robinson stability screen behind the ideal model. A dry gas still
+// sizes.
+func TestIdealModelRefusesWetSuction(t *testing.T) {
+	h := newRouter(t)
+	ideal := func(comp string, temperature, pressure string) string {
+		b := strings.Replace(demoDuty, `"gas": {"model": "ideal-constant", "cp": 1006, "gamma": 1.4, "service": "air"}`,
+			`"gas": {"model": "ideal", "composition": `+comp+`}`, 1)
+		b = strings.Replace(b, `"suction": {"pressure": 98000, "temperature": 305.15}`, `"suction": {"pressure": `+pressure+`, "temperature": `+temperature+`}`, 1)
+		return strings.Replace(b, `"speed": 24000,`, ``, 1)
+	}
+	for _, body := range []string{
+		ideal(`{"C3H8": 1}`, "300", `"20 bara"`),
+		ideal(`{"CH4": 0.85, "C3H8": 0.10, "n-C6H14": 0.05}`, "280", `"50 bara"`),
+		ideal(`{"H2O": 1}`, "300", `"1 bara"`),
+	} {
+		require.NotContains(t, body, "ideal-constant")
+		p := requireProblem(t, postStage(h, body), http.StatusUnprocessableEntity, "unprocessable")
+		assert.Equal(t, []string{"/suction/temperature"}, p.pointers(), body)
+		assert.Contains(t, p.details(), "wet or liquid gas at suction")
+	}
+	w := postStage(h, ideal(`{"CH4": 0.9, "C2H6": 0.1}`, "300", `"30 bara"`))
+	assert.Equal(t, http.StatusOK, w.Code, w.Body.String())
+}

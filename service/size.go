@@ -49,10 +49,14 @@ func (s *Service) SizeStage(ctx context.Context, d StageDuty) (StageResult, erro
 	if err != nil {
 		return StageResult{}, suctionError(err, d)
 	}
-	if suction.Phase == gas.PhaseLiquid || suction.Phase == gas.PhaseTwoPhase {
+	phase, screened := suction.Phase, ""
+	if ph, ok := idealPhaseScreen(model, d.SuctionTemperature, d.SuctionPressure); ok {
+		phase, screened = ph, " by a Peng-Robinson stability test of the composition (the ideal model has no phases)"
+	}
+	if phase == gas.PhaseLiquid || phase == gas.PhaseTwoPhase {
 		return StageResult{}, fieldErr("suction.temperature", reason("suction", fmt.Sprintf(
-			"the gas is %s at suction (%.2f K, %.0f Pa): a compressor needs a dry gas at suction; raise the suction temperature or remove the condensable components",
-			suction.Phase, d.SuctionTemperature, d.SuctionPressure), d.SuctionTemperature))
+			"wet or liquid gas at suction: the gas is %s at suction (%.2f K, %.0f Pa)%s; a compressor needs a dry gas at suction; raise the suction temperature or remove the condensable components",
+			phase, d.SuctionTemperature, d.SuctionPressure, screened), d.SuctionTemperature))
 	}
 	p2, err := dischargePressure(d)
 	if err != nil {
@@ -161,6 +165,30 @@ func (s *Service) SizeStage(ctx context.Context, d StageDuty) (StageResult, erro
 	}
 	res.Cautions = cautionsFor(model, d, &res)
 	return res, nil
+}
+
+// idealPhaseScreen gives the phase of the ideal model's composition at
+// (t, p) from the Peng-Robinson model (its Michelsen stability test): the
+// ideal-gas model itself is always a gas and would size a liquid or a
+// wet gas. ok is false for the other models, and when the screen cannot
+// be built or evaluated (the ideal model's own checks then stand).
+func idealPhaseScreen(m gas.Model, t, p float64) (phase gas.Phase, ok bool) {
+	if m.Name() != "ideal" {
+		return "", false
+	}
+	comp, found := compositionOfModel(m)
+	if !found {
+		return "", false
+	}
+	pr, err := gas.NewModel("peng-robinson", comp, nil)
+	if err != nil {
+		return "", false
+	}
+	st, err := pr.State(physics.Kelvin(t), physics.Pascal(p))
+	if err != nil {
+		return "", false
+	}
+	return st.Phase, true
 }
 
 // MaxExitWidthRatio bounds the impeller exit width b2/D2: the wide-exit
