@@ -272,3 +272,32 @@ func TestIdealModelRefusesWetSuction(t *testing.T) {
 	w := postStage(h, ideal(`{"CH4": 0.9, "C2H6": 0.1}`, "300", `"30 bara"`))
 	assert.Equal(t, http.StatusOK, w.Code, w.Body.String())
 }
+
+// TestPointersOnTinyValues (issue 13 item 5): a value out of range is
+// named by its own pointer, with its range: suction pressure 5e-324 Pa and
+// "1e-320 bara" and temperature 1e-300 K were blamed on /pressure_ratio, a
+// polytropic efficiency of 1e-9 on /impeller/inlet/meridional_velocity
+// (not sent), cp 1e-300 on /speed, and 1e6 kg/s with no speed on /speed
+// (chosen by the service).
+func TestPointersOnTinyValues(t *testing.T) {
+	h := newRouter(t)
+	noSpeed := strings.Replace(demoDuty, `"speed": 24000,`, ``, 1)
+	for _, tt := range []struct {
+		name, body, pointer string
+	}{
+		{"suction pressure 5e-324 Pa", strings.Replace(demoDuty, `"pressure": 98000`, `"pressure": 5e-324`, 1), "/suction/pressure"},
+		{"suction pressure 1e-320 bara", strings.Replace(demoDuty, `"pressure": 98000`, `"pressure": "1e-320 bara"`, 1), "/suction/pressure"},
+		{"suction temperature 1e-300 K", strings.Replace(demoDuty, `"temperature": 305.15`, `"temperature": 1e-300`, 1), "/suction/temperature"},
+		{"polytropic efficiency 1e-9", strings.Replace(demoDuty, `"polytropic": 0.84`, `"polytropic": 1e-9`, 1), "/efficiency/polytropic"},
+		{"cp 1e-300", strings.Replace(demoDuty, `"cp": 1006`, `"cp": 1e-300`, 1), "/gas/cp"},
+		{"1e6 kg/s, no speed", strings.Replace(noSpeed, `"mass": 2.8`, `"mass": 1e6`, 1), "/flow/mass"},
+	} {
+		t.Run(tt.name, func(t *testing.T) {
+			w := postStage(h, tt.body)
+			require.GreaterOrEqual(t, w.Code, 400, w.Body.String())
+			var p problem
+			require.NoError(t, json.Unmarshal(w.Body.Bytes(), &p))
+			assert.Equal(t, []string{tt.pointer}, p.pointers(), p.details())
+		})
+	}
+}

@@ -132,10 +132,10 @@ type FlowSpec struct {
 }
 
 // EfficiencySpec is the stage total-to-total efficiency: exactly one of
-// isentropic or polytropic, each in (0, 1].
+// isentropic or polytropic, each in [0.3, 1].
 type EfficiencySpec struct {
-	Isentropic *float64 `json:"isentropic,omitempty" binding:"required_without=Polytropic,excluded_with=Polytropic" format:"double" minimum:"0" maximum:"1" example:"0.8"`
-	Polytropic *float64 `json:"polytropic,omitempty" binding:"required_without=Isentropic,excluded_with=Isentropic" format:"double" minimum:"0" maximum:"1" example:"0.82"`
+	Isentropic *float64 `json:"isentropic,omitempty" binding:"required_without=Polytropic,excluded_with=Polytropic" format:"double" minimum:"0.3" maximum:"1" example:"0.8"`
+	Polytropic *float64 `json:"polytropic,omitempty" binding:"required_without=Isentropic,excluded_with=Isentropic" format:"double" minimum:"0.3" maximum:"1" example:"0.82"`
 }
 
 // ImpellerSpec is the blading and inlet of the impeller.

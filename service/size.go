@@ -37,6 +37,14 @@ func (s *Service) SizeStage(ctx context.Context, d StageDuty) (StageResult, erro
 	prov.InputHash = hashOf(d)
 	d.Impeller = withImpellerDefaults(d.Impeller, prov)
 
+	if !(d.SuctionPressure >= MinSuctionPressure && d.SuctionPressure <= PropertiesMaxPressure) {
+		return StageResult{}, fieldErr("suction.pressure", reason("suction pressure", fmt.Sprintf(
+			"the suction pressure is out of range: %g Pa to %g MPa absolute", MinSuctionPressure, PropertiesMaxPressure/1e6), d.SuctionPressure))
+	}
+	if !(d.SuctionTemperature >= PropertiesMinTemperature) {
+		return StageResult{}, fieldErr("suction.temperature", reason("suction temperature", fmt.Sprintf(
+			"the suction temperature is out of range: at least %g K", PropertiesMinTemperature), d.SuctionTemperature))
+	}
 	model, gasNotes, err := s.gasModel(d.Gas, d.SuctionTemperature, d.SuctionPressure)
 	if err != nil {
 		return StageResult{}, err
@@ -346,6 +354,16 @@ func (sv *solver) field() string {
 	case "specific-speed":
 		if sv.d.SpeedTarget != nil {
 			return "speed_target.specific_speed"
+		}
+		if sv.d.Speed == nil { // the default specific speed chose it: the flow is what the client sent
+			switch {
+			case sv.d.MassFlow != nil:
+				return "flow.mass"
+			case sv.d.ActualVolumeFlow != nil:
+				return "flow.actual_volume"
+			case sv.d.StandardVolumeFlow != nil:
+				return "flow.standard_volume"
+			}
 		}
 	}
 	return "speed"

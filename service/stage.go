@@ -23,6 +23,17 @@ const ModelVersion = "stagewright-physics 0.3.0"
 
 // Defaults applied when a duty leaves a choice open.
 const (
+	// MinEfficiency is the least stage efficiency (isentropic or
+	// polytropic) accepted: centrifugal stages reach 0.6 to 0.9, and a
+	// value below 0.3 is taken for an input mistake (common practice, no
+	// source); a tiny one made heads so large that the error landed on
+	// another field.
+	MinEfficiency = 0.3
+	// MinSuctionPressure is the least suction pressure accepted, Pa
+	// absolute (common practice, no source: below it no gas model here is
+	// meant to be used, and a value of 5e-324 Pa was blamed on the
+	// pressure ratio).
+	MinSuctionPressure = 100.0
 	// MinMechanicalEfficiency is the least mechanical efficiency (gas
 	// power over shaft power) accepted, given or from mechanical_losses:
 	// bearing, seal and gear losses are a few per cent of the gas power,
@@ -398,8 +409,8 @@ func efficiency(d StageDuty, prov *Provenance) (eff path.Efficiency, field strin
 }
 
 func checkedEff(b path.Basis, v float64, field string) (path.Efficiency, string, error) {
-	if !(v > 0 && v <= 1) {
-		return path.Efficiency{}, field, fieldErr(field, reason(field, "the efficiency must lie in (0, 1]: above 0 and at most 1", v))
+	if !(v >= MinEfficiency && v <= 1) {
+		return path.Efficiency{}, field, fieldErr(field, reason(field, fmt.Sprintf("the efficiency is out of range: it must lie in [%g, 1]", MinEfficiency), v))
 	}
 	return path.Efficiency{Basis: b, Value: v}, field, nil
 }

@@ -42,6 +42,9 @@ func NewConstant(cp physics.JoulePerKgK, gamma float64) (Constant, error) {
 	case !(cp > 0):
 		return Constant{}, &physics.DomainError{Name: "cp", Value: float64(cp), Want: "finite, > 0 J/(kg K)",
 			Reason: "the gas cp must be a positive heat capacity in J/(kg K)"}
+	case !(cp >= 100):
+		return Constant{}, &physics.DomainError{Name: "cp", Value: float64(cp), Want: ">= 100 J/(kg K)",
+			Reason: "the gas cp is out of range: too small (at least 100 J/(kg K); heavy gases such as SF6 have about 600)"}
 	case !(cp < 1e6):
 		return Constant{}, &physics.DomainError{Name: "cp", Value: float64(cp), Want: "< 1e6 J/(kg K)",
 			Reason: "the gas cp is out of range: too large (below 1e6 J/(kg K); hydrogen's is about 14 300)"}
