@@ -51,6 +51,8 @@ type BatchItem struct {
 //	@Failure		400		{object}	Problem	"malformed JSON, unknown field, or a duty of the wrong shape"
 //	@Failure		401		{object}	Problem	"no valid bearer token (when the service is configured with tokens)"
 //	@Failure		413		{object}	Problem	"body larger than the configured limit (default 1 MiB)"
+//	@Failure		408		{object}	Problem	"the body did not arrive within the server's read timeout"
+//	@Failure		415		{object}	Problem	"Content-Type is not application/json (or another +json type)"
 //	@Failure		500		{object}	Problem
 //	@Failure		503		{object}	Problem	"overloaded (retry after the Retry-After header's seconds) or cancelled"
 //	@Failure		504		{object}	Problem	"the computation passed the service's compute deadline"

@@ -15,7 +15,10 @@ import (
 	"github.com/stretchr/testify/assert"
 	"github.com/stretchr/testify/require"
 
+	"stagewright/api"
+	"stagewright/openapi"
 	"stagewright/openapi/client"
+	"stagewright/service"
 )
 
 // liveClient starts the real router over the real service on a loopback
@@ -238,4 +241,33 @@ func TestGeneratedClientRatesTheDemoMachines(t *testing.T) {
 	require.NotNil(t, m.JSON200)
 	assert.Len(t, m.JSON200.SpeedLines, 5)
 	assert.Len(t, m.JSON200.SurgeLine, 5)
+}
+
+// TestGeneratedClientSendsTheToken (issue 13, the contract): against a
+// service configured with a token, the generated client with
+// client.WithBearerToken is served on the /v1 operations the document
+// marks with bearerAuth, and without it is refused 401; the open
+// operations need no token.
+func TestGeneratedClientSendsTheToken(t *testing.T) {
+	const token = "kestrel-ridge-test-token"
+	h, err := api.NewRouter(service.New(), api.Options{Spec: openapi.Swagger2(), Tokens: []string{token}})
+	require.NoError(t, err)
+	srv := httptest.NewServer(h)
+	t.Cleanup(srv.Close)
+	ctx := context.Background()
+
+	with, err := client.NewClientWithResponses(srv.URL, client.WithHTTPClient(srv.Client()), client.WithBearerToken(token))
+	require.NoError(t, err)
+	comps, err := with.GasComponentsWithResponse(ctx)
+	require.NoError(t, err)
+	assert.Equal(t, http.StatusOK, comps.StatusCode(), string(comps.Body))
+
+	without, err := client.NewClientWithResponses(srv.URL, client.WithHTTPClient(srv.Client()))
+	require.NoError(t, err)
+	comps, err = without.GasComponentsWithResponse(ctx)
+	require.NoError(t, err)
+	assert.Equal(t, http.StatusUnauthorized, comps.StatusCode())
+	v, err := without.VersionWithResponse(ctx)
+	require.NoError(t, err)
+	assert.Equal(t, http.StatusOK, v.StatusCode(), "GET /version is open")
 }

@@ -6,7 +6,9 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"net"
 	"net/http"
+	"os"
 	"reflect"
 	"sort"
 	"strconv"
@@ -31,87 +33,155 @@ func newValidator() *validator.Validate {
 }
 
 // requestDecoder holds what strict decoding needs, built once with the
-// router and read-only afterwards: the validator and, for every struct
-// type reachable from the request types, its fields by exact JSON name.
+// router and read-only afterwards: the validator and, for every request
+// type, a tree of its JSON shape (fields by exact JSON name, element
+// types, the JSON kind each Go type accepts).
 type requestDecoder struct {
 	validate *validator.Validate
-	fields   map[reflect.Type]map[string]reflect.Type
+	roots    map[reflect.Type]*shape
 }
 
-// newRequestDecoder indexes the fields of the request types reqs (values
-// or pointers of the request structs).
+// newRequestDecoder builds the shapes of the request types reqs (values or
+// pointers of the request structs).
 func newRequestDecoder(reqs ...any) *requestDecoder {
-	d := &requestDecoder{validate: newValidator(), fields: map[reflect.Type]map[string]reflect.Type{}}
+	d := &requestDecoder{validate: newValidator(), roots: map[reflect.Type]*shape{}}
+	built := map[reflect.Type]*shape{}
 	for _, r := range reqs {
-		d.index(reflect.TypeOf(r))
+		t := reflect.TypeOf(r)
+		d.roots[t] = shapeOf(t, built)
+		d.roots[reflect.PointerTo(t)] = d.roots[t]
 	}
 	return d
 }
 
-func (d *requestDecoder) index(t reflect.Type) {
-	for t.Kind() == reflect.Pointer || t.Kind() == reflect.Slice || t.Kind() == reflect.Array || t.Kind() == reflect.Map {
-		t = t.Elem()
-	}
-	if t.Kind() != reflect.Struct || t == quantityType {
-		return
-	}
-	if _, done := d.fields[t]; done {
-		return
-	}
-	m := map[string]reflect.Type{}
-	d.fields[t] = m
-	for i := range t.NumField() {
-		f := t.Field(i)
-		name, _, _ := strings.Cut(f.Tag.Get("json"), ",")
-		if !f.IsExported() || name == "-" {
-			continue
-		}
-		if name == "" {
-			name = f.Name
-		}
-		m[name] = f.Type
-		d.index(f.Type)
-	}
+// shapeKind is what JSON a Go type accepts.
+type shapeKind uint8
+
+const (
+	shapeAny      shapeKind = iota // anything (an interface, or a json.Unmarshaler other than Quantity)
+	shapeStruct                    // an object with known keys
+	shapeMap                       // an object with any keys
+	shapeSlice                     // an array
+	shapeString                    // a string
+	shapeBool                      // true or false
+	shapeFloat                     // a number that fits a float64
+	shapeInt                       // an integer number that fits an int
+	shapeUint                      // a non-negative integer that fits a uint
+	shapeQuantity                  // a finite number or a non-blank string (Quantity)
+)
+
+// shape is the JSON shape of one Go type.
+type shape struct {
+	kind   shapeKind
+	typ    reflect.Type      // after pointers, for messages
+	fields map[string]*shape // struct: by exact JSON name
+	order  []string          // struct: the JSON names in declaration order
+	names  []string          // struct: the JSON names, sorted
+	elem   *shape            // map, slice
+	bits   int               // float, int, uint
 }
 
+func shapeOf(t reflect.Type, built map[reflect.Type]*shape) *shape {
+	for t.Kind() == reflect.Pointer {
+		t = t.Elem()
+	}
+	if s, ok := built[t]; ok {
+		return s
+	}
+	s := &shape{typ: t}
+	built[t] = s
+	switch {
+	case t == quantityType:
+		s.kind = shapeQuantity
+		return s
+	case reflect.PointerTo(t).Implements(unmarshalerType):
+		return s
+	}
+	switch t.Kind() {
+	case reflect.Struct:
+		s.kind, s.fields = shapeStruct, map[string]*shape{}
+		for i := range t.NumField() {
+			f := t.Field(i)
+			name, _, _ := strings.Cut(f.Tag.Get("json"), ",")
+			if !f.IsExported() || name == "-" {
+				continue
+			}
+			if name == "" {
+				name = f.Name
+			}
+			s.fields[name] = shapeOf(f.Type, built)
+			s.order = append(s.order, name)
+		}
+		s.names = append([]string(nil), s.order...)
+		sort.Strings(s.names)
+	case reflect.Map:
+		s.kind, s.elem = shapeMap, shapeOf(t.Elem(), built)
+	case reflect.Slice, reflect.Array:
+		s.kind, s.elem = shapeSlice, shapeOf(t.Elem(), built)
+	case reflect.String:
+		s.kind = shapeString
+	case reflect.Bool:
+		s.kind = shapeBool
+	case reflect.Float32, reflect.Float64:
+		s.kind, s.bits = shapeFloat, t.Bits()
+	case reflect.Int, reflect.Int8, reflect.Int16, reflect.Int32, reflect.Int64:
+		s.kind, s.bits = shapeInt, t.Bits()
+	case reflect.Uint, reflect.Uint8, reflect.Uint16, reflect.Uint32, reflect.Uint64:
+		s.kind, s.bits = shapeUint, t.Bits()
+	}
+	return s
+}
+
+// errReadTimeout marks a body that did not arrive within the server's
+// read timeout.
+var errReadTimeout = errors.New("api: the request body did not arrive in time")
+
 // decodeStrict reads one JSON value into dst (a pointer to a request
-// struct), rejecting malformed JSON, trailing data, unknown or miscased
-// field names (each reported with its JSON pointer) and wrong JSON types,
-// and then runs the validator's shape checks. The body's size is bounded
-// by the bodyLimit middleware; its *http.MaxBytesError is returned as is.
+// struct). It rejects malformed JSON and trailing data; one walk over the
+// raw bytes (walkKeys) then reports, each with its JSON pointer, every
+// unknown or miscased key, every key given twice in one object, every
+// value of the wrong JSON type and every number its Go field cannot hold;
+// only a body without any of these is decoded into dst, in one typed pass,
+// and the validator's shape checks run. The body's size is bounded by the
+// bodyLimit middleware; its *http.MaxBytesError is returned as is.
 func decodeStrict(r *http.Request, dst any, d *requestDecoder) error {
 	body, err := io.ReadAll(r.Body)
 	if err != nil {
 		var mbe *http.MaxBytesError
-		if errors.As(err, &mbe) {
+		var ne net.Error
+		switch {
+		case errors.As(err, &mbe):
 			return mbe
+		case errors.Is(err, os.ErrDeadlineExceeded), errors.As(err, &ne) && ne.Timeout():
+			return errReadTimeout
 		}
 		return fmt.Errorf("%w: body unreadable", errBadBody)
 	}
+	return decodeBody(body, dst, d)
+}
+
+// decodeBody is decodeStrict on a body already read.
+func decodeBody(body []byte, dst any, d *requestDecoder) error {
 	if len(bytes.TrimSpace(body)) == 0 {
 		return fmt.Errorf("%w: the request body is empty; send a JSON object", errBadBody)
 	}
-	var raw any
-	dec := json.NewDecoder(bytes.NewReader(body))
-	dec.UseNumber()
-	if err := dec.Decode(&raw); err != nil {
-		return fmt.Errorf("%w: %w", errBadBody, err)
+	if !json.Valid(body) {
+		return syntaxError(body)
 	}
-	if _, err := dec.Token(); err != io.EOF {
-		return fmt.Errorf("%w: unexpected data after the JSON object", errBadBody)
+	root, ok := d.roots[reflect.TypeOf(dst)]
+	if !ok {
+		root = shapeOf(reflect.TypeOf(dst), map[reflect.Type]*shape{})
 	}
-	if !d.keysKnown(raw, reflect.TypeOf(dst)) {
-		if probs := unknownFields(raw, reflect.TypeOf(dst), ""); len(probs) > 0 {
-			return probs
-		}
+	if errs, _ := walkKeys(body, root); len(errs) > 0 {
+		return errs
 	}
-	strict := json.NewDecoder(bytes.NewReader(body))
-	strict.DisallowUnknownFields()
-	if err := strict.Decode(dst); err != nil {
+	if err := json.Unmarshal(body, dst); err != nil {
+		// walkKeys found nothing wrong, so this is not expected; kept so
+		// that a disagreement is still a 400 and never a 500.
 		var ute *json.UnmarshalTypeError
 		if errors.As(err, &ute) {
 			return fieldErrors{{Pointer: dottedPointer(ute.Field), Detail: fmt.Sprintf("%s must be a JSON %s, not %s",
-				orBody(ute.Field), jsonKind(ute.Type), ute.Value)}}
+				orBody(ute.Field), jsonKind(ute.Type), clip(ute.Value))}}
 		}
 		return fmt.Errorf("%w: %w", errBadBody, err)
 	}
@@ -119,6 +189,18 @@ func decodeStrict(r *http.Request, dst any, d *requestDecoder) error {
 		return err
 	}
 	return nil
+}
+
+// syntaxError describes a body that is not one JSON value, with the words
+// of encoding/json's decoder (as before the key walk replaced it).
+func syntaxError(body []byte) error {
+	var raw any
+	dec := json.NewDecoder(bytes.NewReader(body))
+	dec.UseNumber()
+	if err := dec.Decode(&raw); err != nil {
+		return fmt.Errorf("%w: %w", errBadBody, err)
+	}
+	return fmt.Errorf("%w: unexpected data after the JSON object", errBadBody)
 }
 
 func orBody(field string) string {
@@ -152,154 +234,20 @@ var (
 	quantityType    = reflect.TypeFor[Quantity]()
 )
 
-// unknownFields walks a generic JSON value against the Go type it will be
-// decoded into and reports every object key that names no field, with its
-// JSON pointer and the nearest field name. encoding/json matches keys
-// case-insensitively and reports unknown keys without their path; this walk
-// makes both strict and precise.
-func unknownFields(raw any, t reflect.Type, ptr string) fieldErrors {
-	for t.Kind() == reflect.Pointer {
-		t = t.Elem()
-	}
-	if t == quantityType {
-		if msg := quantityProblem(raw); msg != "" {
-			name := orBody(strings.ReplaceAll(strings.TrimPrefix(ptr, "/"), "/", "."))
-			if n, ok := raw.(json.Number); ok {
-				name += " = " + string(n)
-			}
-			return fieldErrors{{Pointer: ptr, Detail: name + " " + msg}}
-		}
-		return nil
-	}
-	if reflect.PointerTo(t).Implements(unmarshalerType) {
-		return nil
-	}
-	var out fieldErrors
-	switch t.Kind() {
-	case reflect.Struct:
-		obj, ok := raw.(map[string]any)
-		if !ok {
-			return nil // the typed decode reports the wrong JSON type
-		}
-		fields := map[string]reflect.Type{}
-		var names []string
-		for i := range t.NumField() {
-			f := t.Field(i)
-			name, _, _ := strings.Cut(f.Tag.Get("json"), ",")
-			if !f.IsExported() || name == "-" {
-				continue
-			}
-			if name == "" {
-				name = f.Name
-			}
-			fields[name] = f.Type
-			names = append(names, name)
-		}
-		keys := make([]string, 0, len(obj))
-		for k := range obj {
-			keys = append(keys, k)
-		}
-		sort.Strings(keys)
-		for _, k := range keys {
-			ft, ok := fields[k]
-			p := ptr + "/" + escapePointer(k)
-			if !ok {
-				out = append(out, FieldProblem{Pointer: p, Detail: unknownDetail(k, names)})
-				continue
-			}
-			out = append(out, unknownFields(obj[k], ft, p)...)
-		}
-	case reflect.Slice, reflect.Array:
-		arr, ok := raw.([]any)
-		if !ok {
-			return nil
-		}
-		for i, e := range arr {
-			out = append(out, unknownFields(e, t.Elem(), ptr+"/"+strconv.Itoa(i))...)
-		}
-	case reflect.Map:
-		obj, ok := raw.(map[string]any)
-		if !ok {
-			return nil
-		}
-		for k, e := range obj {
-			out = append(out, unknownFields(e, t.Elem(), ptr+"/"+escapePointer(k))...)
-		}
-	}
-	return out
-}
+// maxEcho bounds how much of a client's input a message quotes.
+const maxEcho = 64
 
-// keysKnown is the quick form of unknownFields for the common case: it
-// reports whether every object key of raw names a field of t (exact case)
-// and every quantity has an acceptable JSON shape, without building
-// pointers, suggestions or sorted key lists; unknownFields then runs only
-// when there is something to report.
-func (d *requestDecoder) keysKnown(raw any, t reflect.Type) bool {
-	for t.Kind() == reflect.Pointer {
-		t = t.Elem()
+// clip shortens an echoed piece of input to maxEcho bytes (on a UTF-8
+// boundary) and says how long it was.
+func clip(s string) string {
+	if len(s) <= maxEcho {
+		return s
 	}
-	if t == quantityType {
-		return quantityProblem(raw) == ""
+	n := maxEcho
+	for n > 0 && s[n]&0xC0 == 0x80 {
+		n--
 	}
-	if reflect.PointerTo(t).Implements(unmarshalerType) {
-		return true
-	}
-	switch t.Kind() {
-	case reflect.Struct:
-		obj, ok := raw.(map[string]any)
-		if !ok {
-			return true // the typed decode reports the wrong JSON type
-		}
-		fields, indexed := d.fields[t]
-		for k, v := range obj {
-			var ft reflect.Type
-			var ok bool
-			if indexed {
-				ft, ok = fields[k]
-			} else {
-				ft, ok = fieldNamed(t, k)
-			}
-			if !ok || !d.keysKnown(v, ft) {
-				return false
-			}
-		}
-	case reflect.Slice, reflect.Array:
-		if arr, ok := raw.([]any); ok {
-			for _, e := range arr {
-				if !d.keysKnown(e, t.Elem()) {
-					return false
-				}
-			}
-		}
-	case reflect.Map:
-		if obj, ok := raw.(map[string]any); ok {
-			for _, e := range obj {
-				if !d.keysKnown(e, t.Elem()) {
-					return false
-				}
-			}
-		}
-	}
-	return true
-}
-
-// fieldNamed returns the type of the exported field of struct t whose JSON
-// name is exactly name.
-func fieldNamed(t reflect.Type, name string) (reflect.Type, bool) {
-	for i := range t.NumField() {
-		f := t.Field(i)
-		if !f.IsExported() {
-			continue
-		}
-		n, _, _ := strings.Cut(f.Tag.Get("json"), ",")
-		if n == "" {
-			n = f.Name
-		}
-		if n == name && n != "-" {
-			return f.Type, true
-		}
-	}
-	return nil, false
+	return s[:n] + "… (" + strconv.Itoa(len(s)) + " bytes)"
 }
 
 // escapePointer escapes a key for a JSON pointer (RFC 6901 §3).
@@ -307,20 +255,23 @@ func escapePointer(k string) string {
 	return strings.ReplaceAll(strings.ReplaceAll(k, "~", "~0"), "/", "~1") // "~" first (RFC 6901 §3)
 }
 
-func unknownDetail(key string, names []string) string {
+// unknownDetail describes an unknown key: the nearest field (in order,
+// the first of the least edit distance) and the fields of its object
+// (sorted).
+func unknownDetail(key string, order, sorted []string) string {
 	best, dist := "", 1<<30
-	for _, n := range names {
-		if d := editDistance(strings.ToLower(key), n); d < dist {
-			best, dist = n, d
+	if len(key) <= 4*maxEcho { // a suggestion for a long key is noise
+		for _, n := range order {
+			if d := editDistance(strings.ToLower(key), n); d < dist {
+				best, dist = n, d
+			}
 		}
 	}
-	msg := fmt.Sprintf("unknown field %q", key)
+	msg := fmt.Sprintf("unknown field %q", clip(key))
 	if best != "" && dist <= max(2, len(key)/3) {
 		msg += fmt.Sprintf("; did you mean %q?", best)
 	}
-	if len(names) > 0 {
-		sorted := append([]string(nil), names...)
-		sort.Strings(sorted)
+	if len(sorted) > 0 {
 		msg += " (fields here: " + strings.Join(sorted, ", ") + ")"
 	}
 	return msg

@@ -72,7 +72,10 @@ type PropertiesResponse struct {
 	Notes          []string      `json:"notes" validate:"required"`
 	ReferenceState string        `json:"reference_state" validate:"required"`
 	Provenance     ProvenanceOut `json:"provenance" validate:"required"`
-	Cautions       string        `json:"cautions" validate:"required"`
+	// Cautions are short sentences, as in a stage answer: what the numbers
+	// are, and that the manufacturer, the standards, local codes and
+	// licensed engineering practice govern.
+	Cautions []string `json:"cautions" validate:"required"`
 }
 
 // ComponentFraction is one component's mole fraction.
@@ -160,6 +163,8 @@ type gasHandler struct {
 //	@Failure		422		{object}	Problem	"state outside the model"
 //	@Failure		401		{object}	Problem	"no valid bearer token (when the service is configured with tokens)"
 //	@Failure		413		{object}	Problem	"body larger than the configured limit (default 1 MiB)"
+//	@Failure		408		{object}	Problem	"the body did not arrive within the server's read timeout"
+//	@Failure		415		{object}	Problem	"Content-Type is not application/json (or another +json type)"
 //	@Failure		500		{object}	Problem
 //	@Failure		503		{object}	Problem	"overloaded (retry after the Retry-After header's seconds) or cancelled"
 //	@Failure		504		{object}	Problem	"the computation passed the service's compute deadline"

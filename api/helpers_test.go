@@ -41,17 +41,19 @@ const problemBase = "https://stagewright.invalid/problems/"
 // titles are the problem titles of each problem kind (part of the API
 // contract: clients may switch on type and show title).
 var titles = map[string]string{
-	"invalid-request":    "Request failed validation",
-	"malformed-body":     "Body is not valid JSON",
-	"unprocessable":      "Input outside what the model covers",
-	"not-found":          "No such endpoint",
-	"method-not-allowed": "Method not allowed",
-	"unauthorized":       "Authentication required",
-	"body-too-large":     "Request body too large",
-	"overloaded":         "Service overloaded",
-	"compute-timeout":    "Computation timed out",
-	"cancelled":          "Request cancelled",
-	"not-ready":          "Not ready",
+	"invalid-request":        "Request failed validation",
+	"malformed-body":         "Body is not valid JSON",
+	"unprocessable":          "Input outside what the model covers",
+	"not-found":              "No such endpoint",
+	"method-not-allowed":     "Method not allowed",
+	"unauthorized":           "Authentication required",
+	"body-too-large":         "Request body too large",
+	"overloaded":             "Service overloaded",
+	"compute-timeout":        "Computation timed out",
+	"cancelled":              "Request cancelled",
+	"not-ready":              "Not ready",
+	"unsupported-media-type": "Unsupported media type",
+	"request-timeout":        "Request body timed out",
 }
 
 func TestMain(m *testing.M) {

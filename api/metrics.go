@@ -89,6 +89,7 @@ func newMetrics(reg *prometheus.Registry, version, commit string) (*metrics, err
 //	@Tags			operations
 //	@Produce		plain
 //	@Success		200	{string}	string	"Prometheus text exposition format"
+//	@ID				metrics
 //	@Router			/metrics [get]
 func (m *metrics) handler() gin.HandlerFunc {
 	h := promhttp.HandlerFor(m.reg, promhttp.HandlerOpts{Registry: m.reg})

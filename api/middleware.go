@@ -5,9 +5,11 @@ import (
 	"encoding/hex"
 	"fmt"
 	"log/slog"
+	"mime"
 	"net/http"
 	"runtime/debug"
 	"strconv"
+	"strings"
 	"time"
 
 	"github.com/gin-gonic/gin"
@@ -149,6 +151,65 @@ func cors(origins []string) gin.HandlerFunc {
 			h.Set("Access-Control-Max-Age", "600")
 			c.AbortWithStatus(http.StatusNoContent)
 			return
+		}
+		c.Next()
+	}
+}
+
+// requireJSON answers 415 to a request with a body whose Content-Type is
+// not JSON: application/json or any application/*+json type (RFC 6839
+// §3.1), parameters such as charset allowed. A POST without a body and
+// without a Content-Type passes, to be answered "the request body is
+// empty". It applies to every route of the group it is used on that takes
+// a body (POST, PUT, PATCH).
+func requireJSON() gin.HandlerFunc {
+	return func(c *gin.Context) {
+		switch c.Request.Method {
+		case http.MethodPost, http.MethodPut, http.MethodPatch:
+		default:
+			c.Next()
+			return
+		}
+		ct := c.GetHeader("Content-Type")
+		if ct == "" && c.Request.ContentLength == 0 {
+			c.Next()
+			return
+		}
+		if !jsonMediaType(ct) {
+			c.Header("Accept-Post", "application/json")
+			shown := "none"
+			if ct != "" {
+				shown = strconv.Quote(clip(ct))
+			}
+			writeProblem(c, Problem{Type: problemBase + "unsupported-media-type", Title: "Unsupported media type",
+				Status: http.StatusUnsupportedMediaType,
+				Detail: "send the body as JSON with Content-Type: application/json (Content-Type was " + shown + ")"})
+			return
+		}
+		c.Next()
+	}
+}
+
+// jsonMediaType reports whether a Content-Type names JSON.
+func jsonMediaType(ct string) bool {
+	mt, _, err := mime.ParseMediaType(ct)
+	if err != nil {
+		return false
+	}
+	return mt == "application/json" || (strings.HasPrefix(mt, "application/") && strings.HasSuffix(mt, "+json"))
+}
+
+// closeWhenDraining answers every request with Connection: close once
+// ready reports false (shutdown has begun): the client then opens its next
+// connection, which a load balancer sends to another replica, instead of
+// reusing this one until the listener closes and a request sent on it as
+// it closes is lost. Idle connections are left open until
+// http.Server.Shutdown: closing them now would race with requests being
+// sent on them.
+func closeWhenDraining(ready func() bool) gin.HandlerFunc {
+	return func(c *gin.Context) {
+		if !ready() {
+			c.Header("Connection", "close")
 		}
 		c.Next()
 	}

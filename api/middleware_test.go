@@ -221,6 +221,7 @@ func TestBodyLimit(t *testing.T) {
 			body := &countingReader{left: 50 << 20}
 			req := httptest.NewRequest(http.MethodPost, path, body)
 			req.ContentLength = 50 << 20
+			req.Header.Set("Content-Type", "application/json")
 			w := send(h, req)
 			p := requireProblem(t, w, http.StatusRequestEntityTooLarge, "body-too-large")
 			assert.Contains(t, p.Detail, "1000 bytes")
@@ -230,6 +231,7 @@ func TestBodyLimit(t *testing.T) {
 			body := &countingReader{left: 50 << 20}
 			req := httptest.NewRequest(http.MethodPost, path, body)
 			req.ContentLength = -1 // unknown, as with Transfer-Encoding: chunked
+			req.Header.Set("Content-Type", "application/json")
 			req.TransferEncoding = []string{"chunked"}
 			w := send(h, req)
 			p := requireProblem(t, w, http.StatusRequestEntityTooLarge, "body-too-large")
@@ -247,6 +249,7 @@ func TestBodyLimit(t *testing.T) {
 		h := newRouter(t)
 		req := httptest.NewRequest(http.MethodPost, "/v1/stage/size", &countingReader{left: 1<<20 + 1})
 		req.ContentLength = 1<<20 + 1
+		req.Header.Set("Content-Type", "application/json")
 		p := requireProblem(t, send(h, req), http.StatusRequestEntityTooLarge, "body-too-large")
 		assert.Contains(t, p.Detail, "1048576 bytes")
 	})

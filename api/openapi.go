@@ -4,6 +4,7 @@ import (
 	"context"
 	"encoding/json"
 	"fmt"
+	"strings"
 
 	"github.com/getkin/kin-openapi/openapi2"
 	"github.com/getkin/kin-openapi/openapi2conv"
@@ -27,11 +28,14 @@ func openAPI3(spec []byte) ([]byte, error) {
 	if doc3.Components != nil {
 		for _, s := range doc3.Components.Schemas {
 			widenQuantities(s.Value)
+			exclusiveMinimums(s.Value)
 			doubleNumbers(s.Value, map[*openapi3.Schema]bool{})
 		}
 	}
 	problemContent(doc3)
 	textContent(doc3)
+	bearerSecurity(doc3)
+	transportErrors(doc3)
 	if err := doc3.Validate(context.Background()); err != nil {
 		return nil, fmt.Errorf("api: openapi 3 document invalid: %w", err)
 	}
@@ -82,6 +86,12 @@ func unitExample(dim string) string {
 		return `"21000 rpm", "2200 rad/s"`
 	case "velocity":
 		return `"130 m/s", "420 ft/s"`
+	case "length":
+		return `"310 mm", "12.2 in"`
+	case "power":
+		return `"520 kW", "700 hp"`
+	case "pressure-difference":
+		return `"0.3 bar", "4 psi"`
 	}
 	return `"1 unit"`
 }
@@ -135,6 +145,97 @@ func problemContent(doc *openapi3.T) {
 					delete(ref.Value.Content, "application/json")
 					ref.Value.Content["application/problem+json"] = mt
 				}
+			}
+		}
+	}
+}
+
+// bearerScheme names the HTTP bearer security scheme in the document.
+const bearerScheme = "bearerAuth"
+
+// securedPrefix is the path prefix of the routes behind bearerAuth (the
+// /v1 group of NewRouter); every other route is open.
+const securedPrefix = "/v1/"
+
+// bearerSecurity declares the HTTP bearer scheme (RFC 6750) and, on every
+// operation, whether it needs a token: those under /v1/ do, the others
+// (probes, version, metrics, the documents and /docs) say security: []
+// explicitly. Swagger 2.0, which swag writes, has no bearer type.
+func bearerSecurity(doc *openapi3.T) {
+	if doc.Components == nil {
+		doc.Components = &openapi3.Components{}
+	}
+	if doc.Components.SecuritySchemes == nil {
+		doc.Components.SecuritySchemes = openapi3.SecuritySchemes{}
+	}
+	doc.Components.SecuritySchemes[bearerScheme] = &openapi3.SecuritySchemeRef{Value: &openapi3.SecurityScheme{
+		Type: "http", Scheme: "bearer",
+		Description: "One of the service's API tokens (STAGEWRIGHT_API_TOKENS) as `Authorization: Bearer TOKEN`. " +
+			"Required on the /v1 routes when the service is configured with tokens; without tokens the service asks for none.",
+	}}
+	if doc.Paths == nil {
+		return
+	}
+	for path, item := range doc.Paths.Map() {
+		for _, op := range item.Operations() {
+			if strings.HasPrefix(path, securedPrefix) {
+				op.Security = &openapi3.SecurityRequirements{{bearerScheme: []string{}}}
+			} else {
+				op.Security = &openapi3.SecurityRequirements{}
+			}
+		}
+	}
+}
+
+// transportErrors documents, on every operation that has no 4xx answer of
+// its own, the 400 that Go's HTTP server sends before the router sees the
+// request: a request line or header it cannot parse. It is the one error
+// that is not problem+json (see the README, Errors).
+func transportErrors(doc *openapi3.T) {
+	if doc.Paths == nil {
+		return
+	}
+	for _, item := range doc.Paths.Map() {
+		for _, op := range item.Operations() {
+			if op.Responses == nil {
+				op.Responses = openapi3.NewResponses()
+			}
+			has4xx := false
+			for code := range op.Responses.Map() {
+				if strings.HasPrefix(code, "4") {
+					has4xx = true
+				}
+			}
+			if has4xx {
+				continue
+			}
+			desc := "a request Go's HTTP server cannot parse (request line or headers), answered in plain text before the service sees it"
+			op.Responses.Set("400", &openapi3.ResponseRef{Value: &openapi3.Response{
+				Description: &desc,
+				Content:     openapi3.NewContentWithSchema(openapi3.NewStringSchema(), []string{"text/plain"}),
+			}})
+		}
+	}
+}
+
+// exclusiveMinimums turns a property's x-exclusive-minimum extension
+// (struct tag extensions:"x-exclusive-minimum=true"; swag has no tag for
+// it) into exclusiveMinimum: the minimum itself is refused.
+func exclusiveMinimums(s *openapi3.Schema) {
+	if s == nil {
+		return
+	}
+	for _, p := range s.Properties {
+		if p == nil || p.Value == nil {
+			continue
+		}
+		if v, ok := p.Value.Extensions["x-exclusive-minimum"]; ok {
+			if v == true || v == "true" {
+				p.Value.ExclusiveMin = openapi3.ExclusiveBound{Bool: openapi3.Ptr(true)}
+			}
+			delete(p.Value.Extensions, "x-exclusive-minimum")
+			if len(p.Value.Extensions) == 0 {
+				p.Value.Extensions = nil
 			}
 		}
 	}

@@ -156,3 +156,52 @@ func walkNumbers(t *testing.T, ref *openapi3.SchemaRef, path string, seen map[*o
 		walkNumbers(t, o, path, seen)
 	}
 }
+
+// TestOpenAPIOperationsComplete is the rule every route follows, checked
+// on the served document so that a route added later (its swag
+// annotations) fails here before the linters of .ci/run (Spectral
+// spectral:oas, Redocly recommended) do: a unique operationId, a summary
+// and a description, tags declared at the top (@tag.name in api/doc.go),
+// at least one documented 4xx answer, and its security: the HTTP bearer
+// scheme on /v1 routes, none elsewhere. The license names a URL.
+func TestOpenAPIOperationsComplete(t *testing.T) {
+	doc := servedOpenAPI3(t)
+	require.NotNil(t, doc.Info.License)
+	assert.NotEmpty(t, doc.Info.License.URL, "license needs a url (Redocly info-license-strict)")
+	require.NotNil(t, doc.Components.SecuritySchemes["bearerAuth"], "components.securitySchemes.bearerAuth")
+	scheme := doc.Components.SecuritySchemes["bearerAuth"].Value
+	assert.Equal(t, "http", scheme.Type)
+	assert.Equal(t, "bearer", scheme.Scheme)
+	tags := map[string]bool{}
+	for _, tag := range doc.Tags {
+		tags[tag.Name] = true
+		assert.NotEmpty(t, tag.Description, "tag %s", tag.Name)
+	}
+	ids := map[string]string{}
+	for path, item := range doc.Paths.Map() {
+		for method, op := range item.Operations() {
+			name := method + " " + path
+			if assert.NotEmpty(t, op.OperationID, "%s: @ID", name) {
+				assert.NotContains(t, ids, op.OperationID, "%s: operationId used by %s", name, ids[op.OperationID])
+				ids[op.OperationID] = name
+			}
+			assert.NotEmpty(t, op.Summary, "%s: @Summary", name)
+			assert.NotEmpty(t, op.Description, "%s: @Description", name)
+			assert.NotEmpty(t, op.Tags, "%s: @Tags", name)
+			for _, tag := range op.Tags {
+				assert.True(t, tags[tag], "%s: tag %q is not declared with @tag.name in api/doc.go", name, tag)
+			}
+			has4xx := false
+			for code := range op.Responses.Map() {
+				has4xx = has4xx || strings.HasPrefix(code, "4")
+			}
+			assert.True(t, has4xx, "%s: no 4xx answer documented", name)
+			require.NotNil(t, op.Security, "%s: security", name)
+			if strings.HasPrefix(path, "/v1/") {
+				assert.Equal(t, openapi3.SecurityRequirements{{"bearerAuth": []string{}}}, *op.Security, name)
+			} else {
+				assert.Empty(t, *op.Security, "%s is open", name)
+			}
+		}
+	}
+}

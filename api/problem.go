@@ -73,6 +73,9 @@ func problemFor(err error) Problem {
 	case errors.As(err, &mbe):
 		return Problem{Type: problemBase + "body-too-large", Title: "Request body too large", Status: http.StatusRequestEntityTooLarge,
 			Detail: fmt.Sprintf("the body exceeds %d bytes; split a batch into smaller ones", mbe.Limit)}
+	case errors.Is(err, errReadTimeout):
+		return Problem{Type: problemBase + "request-timeout", Title: "Request body timed out", Status: http.StatusRequestTimeout,
+			Detail: "the request body did not arrive within the server's read timeout; send it at once, or ask for a longer STAGEWRIGHT_READ_TIMEOUT"}
 	case errors.Is(err, context.DeadlineExceeded):
 		return Problem{Type: problemBase + "compute-timeout", Title: "Computation timed out", Status: http.StatusGatewayTimeout,
 			Detail: "the computation did not finish within the service's compute deadline; split a batch into smaller ones or retry later"}

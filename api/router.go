@@ -51,7 +51,8 @@ type Options struct {
 	// stagewright_build_info metric.
 	Version, Commit string
 	// Ready reports whether the service takes traffic (GET /readyz); nil
-	// is always ready.
+	// is always ready. While it reports false every answer carries
+	// Connection: close.
 	Ready func() bool
 	// Registry receives the metrics served at /metrics; nil is a new
 	// private registry.
@@ -91,7 +92,7 @@ func NewRouter(svc Services, opts Options) (*gin.Engine, error) {
 
 	r := gin.New()
 	r.HandleMethodNotAllowed = true
-	r.Use(requestID(), observe(log, m), recovery(log))
+	r.Use(requestID(), closeWhenDraining(ready), observe(log, m), recovery(log))
 	if len(opts.CORSOrigins) > 0 {
 		r.Use(cors(opts.CORSOrigins))
 	}
@@ -113,11 +114,13 @@ func NewRouter(svc Services, opts Options) (*gin.Engine, error) {
 	r.GET("/openapi.json", func(c *gin.Context) { c.Data(http.StatusOK, "application/json", doc3) })
 	spec := opts.Spec
 	r.GET("/openapi/swagger.json", func(c *gin.Context) { c.Data(http.StatusOK, "application/json", spec) })
+	docsRoutes(r)
 
 	v1 := r.Group("/v1")
 	if len(opts.Tokens) > 0 {
 		v1.Use(bearerAuth(opts.Tokens))
 	}
+	v1.Use(requireJSON())
 	if opts.MaxInFlight > 0 {
 		v1.Use(shed(opts.MaxInFlight))
 	}
@@ -152,8 +155,9 @@ func NewRouter(svc Services, opts Options) (*gin.Engine, error) {
 
 // health answers the liveness probe: the process serves HTTP.
 //
-//	@Summary	Liveness
-//	@Tags		operations
+//	@Summary		Liveness
+//	@Description	200 while the process serves HTTP (liveness probe); it does not check readiness. Not under authentication.
+//	@Tags			operations
 //	@Produce	json
 //	@Success	200	{object}	Health
 //	@ID		health
@@ -170,6 +174,7 @@ func health(c *gin.Context) {
 //	@Produce		json
 //	@Success		200	{object}	Health
 //	@Failure		503	{object}	Problem	"shutting down"
+//	@ID				readiness
 //	@Router			/readyz [get]
 func readiness(ready func() bool) gin.HandlerFunc {
 	return func(c *gin.Context) {
@@ -197,10 +202,12 @@ type VersionInfo struct {
 
 // versionHandler reports the build.
 //
-//	@Summary	Build and model version
-//	@Tags		operations
+//	@Summary		Build and model version
+//	@Description	The build (version, commit, Go toolchain) and the physics model version that answer. Not under authentication.
+//	@Tags			operations
 //	@Produce	json
 //	@Success	200	{object}	VersionInfo
+//	@ID			version
 //	@Router		/version [get]
 func versionHandler(version, commit string) gin.HandlerFunc {
 	info := VersionInfo{Version: version, Commit: commit, GoVersion: runtime.Version(), ModelVersion: service.ModelVersion}

@@ -27,10 +27,11 @@ type StageRequest struct {
 	// (2013) correlation in flow coefficient and tip Mach number.
 	Efficiency *EfficiencySpec `json:"efficiency,omitempty"`
 	// MechanicalEfficiency is gas power over shaft power (bearing and seal
-	// losses); default 0.98.
-	MechanicalEfficiency *float64 `json:"mechanical_efficiency,omitempty" binding:"excluded_with=MechanicalLosses" format:"double" minimum:"0" maximum:"1" example:"0.98"`
+	// losses), 0.8 to 1; default 0.98.
+	MechanicalEfficiency *float64 `json:"mechanical_efficiency,omitempty" binding:"excluded_with=MechanicalLosses" format:"double" minimum:"0.8" maximum:"1" example:"0.98"`
 	// MechanicalLosses are the bearing, seal and gear losses, W (or "kW"),
-	// instead of mechanical_efficiency: shaft power = gas power + losses.
+	// instead of mechanical_efficiency: shaft power = gas power + losses;
+	// at most a quarter of the gas power.
 	MechanicalLosses *Quantity `json:"mechanical_losses,omitempty" swaggertype:"primitive,number" format:"double" example:"12000" extensions:"x-unit-string=power"`
 	// Impeller is the blading and inlet; leave it (or any of its fields)
 	// out for the defaults of a backswept process impeller, each recorded
@@ -78,8 +79,9 @@ type GasSpec struct {
 	Model string `json:"model" binding:"required,oneof=ideal-constant ideal peng-robinson srk gerg-2008" enums:"ideal-constant,ideal,peng-robinson,srk,gerg-2008" example:"ideal-constant"`
 	// Cp is the isobaric specific heat capacity for "ideal-constant", J/(kg K).
 	Cp *float64 `json:"cp,omitempty" format:"double" minimum:"0" example:"1005"`
-	// Gamma is the ratio of specific heats cp/cv for "ideal-constant".
-	Gamma *float64 `json:"gamma,omitempty" format:"double" minimum:"1" maximum:"1.6667" example:"1.4"`
+	// Gamma is the ratio of specific heats cp/cv for "ideal-constant":
+	// above 1, at most 5/3 (1.6667 accepted).
+	Gamma *float64 `json:"gamma,omitempty" format:"double" minimum:"1" maximum:"1.6667" extensions:"x-exclusive-minimum=true" example:"1.4"`
 	// Composition maps component (formula or name, e.g. "CH4", "methane")
 	// to its fraction, for the "ideal", "peng-robinson", "srk" and "gerg-2008"
 	// models ("gerg-2008" takes only its 21 components).
@@ -132,10 +134,10 @@ type FlowSpec struct {
 }
 
 // EfficiencySpec is the stage total-to-total efficiency: exactly one of
-// isentropic or polytropic, each in (0, 1].
+// isentropic or polytropic, each in [0.3, 1].
 type EfficiencySpec struct {
-	Isentropic *float64 `json:"isentropic,omitempty" binding:"required_without=Polytropic,excluded_with=Polytropic" format:"double" minimum:"0" maximum:"1" example:"0.8"`
-	Polytropic *float64 `json:"polytropic,omitempty" binding:"required_without=Isentropic,excluded_with=Isentropic" format:"double" minimum:"0" maximum:"1" example:"0.82"`
+	Isentropic *float64 `json:"isentropic,omitempty" binding:"required_without=Polytropic,excluded_with=Polytropic" format:"double" minimum:"0.3" maximum:"1" example:"0.8"`
+	Polytropic *float64 `json:"polytropic,omitempty" binding:"required_without=Isentropic,excluded_with=Isentropic" format:"double" minimum:"0.3" maximum:"1" example:"0.82"`
 }
 
 // ImpellerSpec is the blading and inlet of the impeller.

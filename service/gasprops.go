@@ -3,6 +3,7 @@ package service
 import (
 	"context"
 	"fmt"
+	"math"
 
 	"stagewright/physics"
 	"stagewright/physics/gas"
@@ -24,11 +25,23 @@ type PropertiesResult struct {
 	WaterDewPoint float64
 	Notes         []string
 	Provenance    Provenance
-	Cautions      string
+	Cautions      []string
 }
 
+// The state range of GasProperties beyond each model's own temperature
+// range: the cubic equations of state and the ideal-gas models are used
+// here for compressor gases, not for solids, cryogenic liquids or
+// pressures above 100 MPa, where they answer numbers without meaning
+// (common practice, no source).
+const (
+	PropertiesMaxPressure    = 100e6 // Pa absolute
+	PropertiesMinTemperature = 20.0  // K
+)
+
 // GasProperties returns the properties of gas g at temperature t (K) and
-// pressure p (Pa absolute).
+// pressure p (Pa absolute); outside the models' range (PropertiesMaxPressure,
+// PropertiesMinTemperature and the model's TemperatureRange) it answers an
+// InputError naming the field and the range.
 func (s *Service) GasProperties(ctx context.Context, g GasInput, t, p float64) (PropertiesResult, error) {
 	if err := ctx.Err(); err != nil {
 		return PropertiesResult{}, err
@@ -47,9 +60,28 @@ func (s *Service) GasProperties(ctx context.Context, g GasInput, t, p float64) (
 	if !(p > 0) || !physics.Finite(p) {
 		return res, fieldErr("pressure", reason("pressure", "the pressure must be a finite absolute pressure above 0 Pa", p))
 	}
+	if p > PropertiesMaxPressure {
+		return res, fieldErr("pressure", reason("pressure", fmt.Sprintf(
+			"the pressure is out of range: the models cover up to %g MPa absolute", PropertiesMaxPressure/1e6), p))
+	}
 	m, notes, err := s.gasModel(g, t, p)
 	if err != nil {
 		return res, err
+	}
+	lo, hi := PropertiesMinTemperature, math.Inf(1)
+	if r, ok := m.(interface {
+		TemperatureRange() (lo, hi physics.Kelvin)
+	}); ok {
+		mlo, mhi := r.TemperatureRange()
+		lo, hi = max(lo, float64(mlo)), float64(mhi)
+	}
+	if !(t >= lo && t <= hi) {
+		rng := fmt.Sprintf("from %g K", lo)
+		if !math.IsInf(hi, 1) {
+			rng = fmt.Sprintf("%g to %g K", lo, hi)
+		}
+		return res, fieldErr("temperature", reason("temperature", fmt.Sprintf(
+			"the temperature is out of range: the %s model covers %s", m.Name(), rng), t))
 	}
 	res.Provenance.GasModel = m.Name()
 	res.Provenance.Methods = notes.methods
@@ -84,7 +116,7 @@ func (s *Service) GasProperties(ctx context.Context, g GasInput, t, p float64) (
 			res.Notes = append(res.Notes, w.Message)
 		}
 	}
-	res.Cautions = Cautions
+	res.Cautions = Cautions()
 	return res, nil
 }
 

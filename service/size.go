@@ -12,6 +12,7 @@ import (
 	"stagewright/physics/limits"
 	"stagewright/physics/path"
 	"stagewright/physics/stage"
+	wat "stagewright/physics/water"
 )
 
 // DefaultExitBlockage is the blocked fraction of the impeller exit area
@@ -37,6 +38,14 @@ func (s *Service) SizeStage(ctx context.Context, d StageDuty) (StageResult, erro
 	prov.InputHash = hashOf(d)
 	d.Impeller = withImpellerDefaults(d.Impeller, prov)
 
+	if !(d.SuctionPressure >= MinSuctionPressure && d.SuctionPressure <= PropertiesMaxPressure) {
+		return StageResult{}, fieldErr("suction.pressure", reason("suction pressure", fmt.Sprintf(
+			"the suction pressure is out of range: %g Pa to %g MPa absolute", MinSuctionPressure, PropertiesMaxPressure/1e6), d.SuctionPressure))
+	}
+	if !(d.SuctionTemperature >= PropertiesMinTemperature) {
+		return StageResult{}, fieldErr("suction.temperature", reason("suction temperature", fmt.Sprintf(
+			"the suction temperature is out of range: at least %g K", PropertiesMinTemperature), d.SuctionTemperature))
+	}
 	model, gasNotes, err := s.gasModel(d.Gas, d.SuctionTemperature, d.SuctionPressure)
 	if err != nil {
 		return StageResult{}, err
@@ -50,10 +59,14 @@ func (s *Service) SizeStage(ctx context.Context, d StageDuty) (StageResult, erro
 	if err != nil {
 		return StageResult{}, suctionError(err, d)
 	}
-	if suction.Phase == gas.PhaseLiquid || suction.Phase == gas.PhaseTwoPhase {
+	phase, screened := suction.Phase, ""
+	if ph, ok := idealPhaseScreen(model, d.SuctionTemperature, d.SuctionPressure); ok {
+		phase, screened = ph, " by a Peng-Robinson stability test of the composition (the ideal model has no phases)"
+	}
+	if phase == gas.PhaseLiquid || phase == gas.PhaseTwoPhase {
 		return StageResult{}, fieldErr("suction.temperature", reason("suction", fmt.Sprintf(
-			"the gas is %s at suction (%.2f K, %.0f Pa): a compressor needs a dry gas at suction; raise the suction temperature or remove the condensable components",
-			suction.Phase, d.SuctionTemperature, d.SuctionPressure), d.SuctionTemperature))
+			"wet or liquid gas at suction: the gas is %s at suction (%.2f K, %.0f Pa)%s; a compressor needs a dry gas at suction; raise the suction temperature or remove the condensable components",
+			phase, d.SuctionTemperature, d.SuctionPressure, screened), d.SuctionTemperature))
 	}
 	p2, err := dischargePressure(d)
 	if err != nil {
@@ -131,6 +144,16 @@ func (s *Service) SizeStage(ctx context.Context, d StageDuty) (StageResult, erro
 		prov.Methods = append(prov.Methods, slipMethod(d.Impeller, imp.SlipFactor, sz.Coefficients.InletTipRatio))
 	}
 
+	if r := sz.Coefficients.ExitWidthRatio; !(r <= MaxExitWidthRatio) {
+		field := "flow"
+		if d.Impeller.ExitMeridionalVelocity != nil {
+			field = "impeller.exit_meridional_velocity"
+		}
+		return StageResult{}, fieldErr(field, reason("exit width ratio", fmt.Sprintf(
+			"the impeller exit would be %.3g m wide for a tip diameter of %.3g m (b2/D2 = %.3g): out of range, an impossible geometry above b2/D2 = %g; raise the exit meridional velocity or the speed, or lower the flow",
+			float64(sz.Geometry.ExitWidth), float64(sz.Geometry.TipDiameter), r, MaxExitWidthRatio), r))
+	}
+
 	res.MassFlow = mdot
 	res.SuctionVolumeFlow = sz.SuctionFlow
 	res.StandardFlows = standardFlows(model, mdot)
@@ -158,6 +181,83 @@ func (s *Service) SizeStage(ctx context.Context, d StageDuty) (StageResult, erro
 	res.Machine = machineOf(d, &res)
 	return res, nil
 }
+
+// idealPhaseScreen gives the phase of the ideal model's composition at
+// (t, p): the ideal-gas model itself is always a gas and would size a
+// liquid or a wet gas. Water is judged by IAPWS-IF97 (the reference the
+// humidity input and the coolers use): the gas is wet when the water's
+// partial pressure exceeds its saturation pressure at t by more than
+// waterScreenTolerance. The other components are judged by the
+// Peng-Robinson model's Michelsen stability test on the composition
+// without its water (Peng-Robinson's own water vapour pressure is a few
+// per cent off IF97, and a gas saturated by IF97 after a cooler must not
+// read as wet). ok is false for the other models, and when the screen
+// cannot be built or evaluated (the ideal model's own checks then stand).
+func idealPhaseScreen(m gas.Model, t, p float64) (phase gas.Phase, ok bool) {
+	if m.Name() != "ideal" {
+		return "", false
+	}
+	comp, found := compositionOfModel(m)
+	if !found {
+		return "", false
+	}
+	x := comp.MoleFractions()
+	var dry []gas.Fraction
+	water := 0.0
+	for i := range comp.Len() {
+		if comp.Component(i).ID == "water" {
+			water += x[i]
+			continue
+		}
+		if x[i] > 0 {
+			dry = append(dry, gas.Fraction{Name: comp.Component(i).ID, Value: x[i]})
+		}
+	}
+	if water > 0 {
+		psat, err := wat.SaturationPressure(physics.Kelvin(t))
+		if err == nil && water*p > float64(psat)*(1+waterScreenTolerance) {
+			return gas.PhaseTwoPhase, true
+		}
+		if err != nil && water >= 1 {
+			return "", false
+		}
+	}
+	if len(dry) == 0 {
+		return gas.PhaseGas, true
+	}
+	sum := 0.0
+	for _, f := range dry {
+		sum += f.Value
+	}
+	for i := range dry {
+		dry[i].Value /= sum
+	}
+	dc, err := gas.NewComposition(dry, gas.BasisMole)
+	if err != nil {
+		return "", false
+	}
+	pr, err := gas.NewModel("peng-robinson", dc, nil)
+	if err != nil {
+		return "", false
+	}
+	st, err := pr.State(physics.Kelvin(t), physics.Pascal(p*(1-water)))
+	if err != nil {
+		return "", false
+	}
+	return st.Phase, true
+}
+
+// waterScreenTolerance is how far the water's partial pressure may exceed
+// its IF97 saturation pressure before the ideal model's suction is wet: the
+// rounding of a gas saturated exactly at a cooler outlet (1e-6).
+const waterScreenTolerance = 1e-6
+
+// MaxExitWidthRatio bounds the impeller exit width b2/D2: the wide-exit
+// rule warns above 0.08 and marks the limit of practice at 0.10
+// (physics/limits); an exit wider than a quarter of the tip diameter is
+// not a centrifugal impeller at all, and the sizing refuses it (common
+// practice, no source).
+const MaxExitWidthRatio = 0.25
 
 func polytropicMethod(d StageDuty, prov *Provenance) (path.Method, error) {
 	switch d.PolytropicMethod {
@@ -307,6 +407,16 @@ func (sv *solver) field() string {
 	case "specific-speed":
 		if sv.d.SpeedTarget != nil {
 			return "speed_target.specific_speed"
+		}
+		if sv.d.Speed == nil { // the default specific speed chose it: the flow is what the client sent
+			switch {
+			case sv.d.MassFlow != nil:
+				return "flow.mass"
+			case sv.d.ActualVolumeFlow != nil:
+				return "flow.actual_volume"
+			case sv.d.StandardVolumeFlow != nil:
+				return "flow.standard_volume"
+			}
 		}
 	}
 	return "speed"

@@ -23,6 +23,23 @@ const ModelVersion = "stagewright-physics 0.5.0"
 
 // Defaults applied when a duty leaves a choice open.
 const (
+	// MinEfficiency is the least stage efficiency (isentropic or
+	// polytropic) accepted: centrifugal stages reach 0.6 to 0.9, and a
+	// value below 0.3 is taken for an input mistake (common practice, no
+	// source); a tiny one made heads so large that the error landed on
+	// another field.
+	MinEfficiency = 0.3
+	// MinSuctionPressure is the least suction pressure accepted, Pa
+	// absolute (common practice, no source: below it no gas model here is
+	// meant to be used, and a value of 5e-324 Pa was blamed on the
+	// pressure ratio).
+	MinSuctionPressure = 100.0
+	// MinMechanicalEfficiency is the least mechanical efficiency (gas
+	// power over shaft power) accepted, given or from mechanical_losses:
+	// bearing, seal and gear losses are a few per cent of the gas power,
+	// so losses of more than a quarter of it are taken for an input
+	// mistake (common practice, no source).
+	MinMechanicalEfficiency = 0.8
 	// DefaultMechanicalEfficiency is gas power over shaft power: bearing
 	// and seal losses of 1-2 % of gas power for large process machines
 	// (testdata/reference/rules-of-thumb.md §10, common practice, no source).
@@ -31,12 +48,18 @@ const (
 	DefaultPowerInputFactor = 1.0
 )
 
-// Cautions is carried by every result: what the numbers are and are not.
-const Cautions = "Preliminary engineering estimate from published methods, not a machine selection or guarantee. " +
-	"Centrifugal compressors can fail violently and handle toxic, flammable or asphyxiating gases: the machine's " +
-	"manufacturer, the applicable standards (API 617 / ISO 10439 and their peers), local codes and licensed engineering " +
-	"practice govern overspeed and trip settings, overpressure protection and relief, surge control, discharge " +
-	"temperature limits, materials and sealing. Confirm every figure with the manufacturer before use."
+// Cautions is carried by every gas-property result, one sentence an
+// entry: what the numbers are and are not.
+func Cautions() []string {
+	return []string{
+		"Preliminary engineering estimate from published methods, not a machine selection or guarantee.",
+		"Centrifugal compressors can fail violently and handle toxic, flammable or asphyxiating gases: the machine's " +
+			"manufacturer, the applicable standards (API 617 / ISO 10439 and their peers), local codes and licensed engineering " +
+			"practice govern overspeed and trip settings, overpressure protection and relief, surge control, discharge " +
+			"temperature limits, materials and sealing.",
+		"Confirm every figure with the manufacturer before use.",
+	}
+}
 
 // Service runs the use cases. It holds no mutable state and is safe for
 // concurrent use.
@@ -399,8 +422,8 @@ func efficiency(d StageDuty, prov *Provenance) (eff path.Efficiency, field strin
 }
 
 func checkedEff(b path.Basis, v float64, field string) (path.Efficiency, string, error) {
-	if !(v > 0 && v <= 1) {
-		return path.Efficiency{}, field, fieldErr(field, reason(field, "the efficiency must lie in (0, 1]: above 0 and at most 1", v))
+	if !(v >= MinEfficiency && v <= 1) {
+		return path.Efficiency{}, field, fieldErr(field, reason(field, fmt.Sprintf("the efficiency is out of range: it must lie in [%g, 1]", MinEfficiency), v))
 	}
 	return path.Efficiency{Basis: b, Value: v}, field, nil
 }
@@ -540,11 +563,15 @@ func power(d StageDuty, mdot, work float64, prov *Provenance) (Power, error) {
 			return Power{}, fieldErr("mechanical_losses", reason("mechanical_losses", "the mechanical losses must be a number of W, at least 0", l))
 		}
 		eta = g / (g + l)
+		if !(eta >= MinMechanicalEfficiency) {
+			return Power{}, fieldErr("mechanical_losses", reason("mechanical_losses", fmt.Sprintf(
+				"the mechanical losses are out of range: at most a quarter of the gas power (%.4g W here), a mechanical efficiency of at least %g", g/4, MinMechanicalEfficiency), l))
+		}
 	case d.MechanicalEfficiency != nil:
 		eta = *d.MechanicalEfficiency
-		if !(eta > 0 && eta <= 1) {
-			return Power{}, fieldErr("mechanical_efficiency", reason("mechanical_efficiency",
-				"the mechanical efficiency must lie in (0, 1]", eta))
+		if !(eta >= MinMechanicalEfficiency && eta <= 1) {
+			return Power{}, fieldErr("mechanical_efficiency", reason("mechanical_efficiency", fmt.Sprintf(
+				"the mechanical efficiency is out of range: it must lie in [%g, 1] (bearing, seal and gear losses of at most a quarter of the gas power)", MinMechanicalEfficiency), eta))
 		}
 	default:
 		prov.Defaults = append(prov.Defaults, Default{Field: "mechanical_efficiency", Value: "0.98",

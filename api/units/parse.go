@@ -86,8 +86,8 @@ func ParsePressure(s string, ambient float64) (float64, error) {
 	p := v * u.factor
 	if u.gauge {
 		if !(ambient > 0) || math.IsInf(ambient, 0) {
-			return 0, &Error{Quantity: pressureDim().name, Input: s,
-				Reason: fmt.Sprintf("gauge pressure %q needs the ambient pressure as a finite absolute pressure above 0 Pa (got %g)", s, ambient)}
+			return 0, &Error{Quantity: pressureDim().name, Input: clipText(s),
+				Reason: fmt.Sprintf("gauge pressure %q needs the ambient pressure as a finite absolute pressure above 0 Pa (got %g)", clipText(s), ambient)}
 		}
 		p += ambient
 	}
@@ -95,8 +95,8 @@ func ParsePressure(s string, ambient float64) (float64, error) {
 		return 0, err
 	}
 	if p < 0 {
-		return 0, &Error{Quantity: pressureDim().name, Input: s,
-			Reason: fmt.Sprintf("pressure %q is %.6g Pa absolute, below vacuum; an absolute pressure cannot be negative", s, p)}
+		return 0, &Error{Quantity: pressureDim().name, Input: clipText(s),
+			Reason: fmt.Sprintf("pressure %q is %.6g Pa absolute, below vacuum; an absolute pressure cannot be negative", clipText(s), p)}
 	}
 	return p, nil
 }
@@ -115,8 +115,8 @@ func ParseTemperature(s string) (float64, error) {
 		return 0, err
 	}
 	if t < 0 {
-		return 0, &Error{Quantity: temperatureDim().name, Input: s,
-			Reason: fmt.Sprintf("temperature %q is %.6g K, below absolute zero", s, t)}
+		return 0, &Error{Quantity: temperatureDim().name, Input: clipText(s),
+			Reason: fmt.Sprintf("temperature %q is %.6g K, below absolute zero", clipText(s), t)}
 	}
 	return t, nil
 }
@@ -203,47 +203,47 @@ func parseLinear(d dimension, s string) (float64, error) {
 func parse(d dimension, s string) (float64, unit, error) {
 	text := strings.TrimSpace(s)
 	if text == "" {
-		return 0, unit{}, &Error{Quantity: d.name, Input: s,
+		return 0, unit{}, &Error{Quantity: d.name, Input: clipText(s),
 			Reason: fmt.Sprintf("empty %s; give a JSON number in %s or a string with a unit such as %q", d.name, d.si, d.example)}
 	}
 	num, rest := splitNumber(text)
 	if num == "" {
-		return 0, unit{}, &Error{Quantity: d.name, Input: s,
-			Reason: fmt.Sprintf("%s %q does not start with a number; write the value, then the unit, e.g. %q", d.name, s, d.example)}
+		return 0, unit{}, &Error{Quantity: d.name, Input: clipText(s),
+			Reason: fmt.Sprintf("%s %q does not start with a number; write the value, then the unit, e.g. %q", d.name, clipText(s), d.example)}
 	}
 	v, err := strconv.ParseFloat(num, 64)
 	if err != nil || math.IsInf(v, 0) || math.IsNaN(v) {
-		return 0, unit{}, &Error{Quantity: d.name, Input: s,
-			Reason: fmt.Sprintf("the number in %s %q is out of range", d.name, s)}
+		return 0, unit{}, &Error{Quantity: d.name, Input: clipText(s),
+			Reason: fmt.Sprintf("the number in %s %q is out of range", d.name, clipText(s))}
 	}
 	unitText := strings.TrimSpace(rest)
 	if unitText == "" {
-		return 0, unit{}, &Error{Quantity: d.name, Input: s,
-			Reason: fmt.Sprintf("%s %q has no unit; send a JSON number for %s or add a unit: %s", d.name, s, d.si, d.units)}
+		return 0, unit{}, &Error{Quantity: d.name, Input: clipText(s),
+			Reason: fmt.Sprintf("%s %q has no unit; send a JSON number for %s or add a unit: %s", d.name, clipText(s), d.si, d.units)}
 	}
 	if unitText[0] == ',' {
-		return 0, unit{}, &Error{Quantity: d.name, Input: s,
-			Reason: fmt.Sprintf("%s %q: write the number with a decimal point and no thousands separator, e.g. %q", d.name, s, d.example)}
+		return 0, unit{}, &Error{Quantity: d.name, Input: clipText(s),
+			Reason: fmt.Sprintf("%s %q: write the number with a decimal point and no thousands separator, e.g. %q", d.name, clipText(s), d.example)}
 	}
 	key := normalize(unitText)
 	if u, ok := d.lookup(key); ok {
 		return v, u, nil
 	}
 	if d.name == "pressure" && key == "psi" {
-		return 0, unit{}, &Error{Quantity: d.name, Input: s,
-			Reason: fmt.Sprintf("pressure %q does not say whether it is absolute or gauge; write psia or psig", s)}
+		return 0, unit{}, &Error{Quantity: d.name, Input: clipText(s),
+			Reason: fmt.Sprintf("pressure %q does not say whether it is absolute or gauge; write psia or psig", clipText(s))}
 	}
 	for _, other := range dimensions() {
 		if other.name == d.name {
 			continue
 		}
 		if _, ok := other.lookup(key); ok {
-			return 0, unit{}, &Error{Quantity: d.name, Input: s,
-				Reason: fmt.Sprintf("%q is %s %s unit, but this is %s %s; use %s", unitText, article(other.name), other.name, article(d.name), d.name, d.units)}
+			return 0, unit{}, &Error{Quantity: d.name, Input: clipText(s),
+				Reason: fmt.Sprintf("%q is %s %s unit, but this is %s %s; use %s", clipText(unitText), article(other.name), other.name, article(d.name), d.name, d.units)}
 		}
 	}
-	return 0, unit{}, &Error{Quantity: d.name, Input: s,
-		Reason: fmt.Sprintf("unknown %s unit %q; use %s", d.name, unitText, d.units)}
+	return 0, unit{}, &Error{Quantity: d.name, Input: clipText(s),
+		Reason: fmt.Sprintf("unknown %s unit %q; use %s", d.name, clipText(unitText), d.units)}
 }
 
 // article returns "an" before a vowel, else "a".
@@ -257,8 +257,8 @@ func article(word string) string {
 // finiteSI refuses a conversion that overflowed.
 func finiteSI(d dimension, s string, v float64) error {
 	if math.IsNaN(v) || math.IsInf(v, 0) {
-		return &Error{Quantity: d.name, Input: s,
-			Reason: fmt.Sprintf("%s %q is too large to convert to %s", d.name, s, d.si)}
+		return &Error{Quantity: d.name, Input: clipText(s),
+			Reason: fmt.Sprintf("%s %q is too large to convert to %s", d.name, clipText(s), d.si)}
 	}
 	return nil
 }
@@ -331,4 +331,21 @@ func normalize(u string) string {
 		}
 	}
 	return b.String()
+}
+
+// maxEcho bounds how much of a client's text an error quotes.
+const maxEcho = 64
+
+// clipText shortens a client's text quoted in an error to maxEcho bytes
+// (on a UTF-8 boundary) and says how long it was: a long string is not
+// echoed back whole (twice, in a problem's detail and its field error).
+func clipText(s string) string {
+	if len(s) <= maxEcho {
+		return s
+	}
+	n := maxEcho
+	for n > 0 && s[n]&0xC0 == 0x80 {
+		n--
+	}
+	return s[:n] + "… (" + strconv.Itoa(len(s)) + " bytes)"
 }

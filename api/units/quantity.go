@@ -29,22 +29,22 @@ func (q *Quantity) UnmarshalJSON(b []byte) error {
 	case b[0] == '"':
 		var s string
 		if err := json.Unmarshal(b, &s); err != nil {
-			return &Error{Input: string(b), Reason: "the string of a physical value is not valid JSON"}
+			return &Error{Input: clipText(string(b)), Reason: "the string of a physical value is not valid JSON"}
 		}
 		if strings.TrimSpace(s) == "" {
-			return &Error{Input: s, Reason: "a physical value must not be an empty string; give a number in SI units or a string with a unit, e.g. \"35 degC\""}
+			return &Error{Input: clipText(s), Reason: "a physical value must not be an empty string; give a number in SI units or a string with a unit, e.g. \"35 degC\""}
 		}
 		*q = Quantity{Text: s}
 		return nil
 	case b[0] == '-' || (b[0] >= '0' && b[0] <= '9'):
 		v, err := strconv.ParseFloat(string(b), 64)
 		if err != nil || math.IsInf(v, 0) || math.IsNaN(v) {
-			return &Error{Input: string(b), Reason: fmt.Sprintf("the number %s is not a finite number", b)}
+			return &Error{Input: clipText(string(b)), Reason: fmt.Sprintf("the number %s is not a finite number", clipText(string(b)))}
 		}
 		*q = Quantity{Value: v}
 		return nil
 	}
-	return &Error{Input: string(b), Reason: fmt.Sprintf("a physical value must be a JSON number in SI units or a string with a unit, not %s", kindOf(b))}
+	return &Error{Input: clipText(string(b)), Reason: fmt.Sprintf("a physical value must be a JSON number in SI units or a string with a unit, not %s", kindOf(b))}
 }
 
 func kindOf(b []byte) string {

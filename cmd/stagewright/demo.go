@@ -17,7 +17,10 @@ import (
 
 // runDemo posts every demo duty in dir to the running server and prints a
 // summary table: what a newcomer sees first. token, when not empty, is
-// sent as the bearer token.
+// sent as the bearer token. The table goes to out in one write once every
+// duty is sized, so that in a terminal the server's JSON log lines (on
+// stderr) come before or after it, never between its rows; the warnings
+// column names each code once.
 func runDemo(ctx context.Context, base, dir, token string, out io.Writer) error {
 	files, err := filepath.Glob(filepath.Join(dir, "*.in.json"))
 	if err != nil || len(files) == 0 {
@@ -25,7 +28,8 @@ func runDemo(ctx context.Context, base, dir, token string, out io.Writer) error 
 	}
 	sort.Strings(files)
 	client := &http.Client{Timeout: 10 * time.Second}
-	tw := tabwriter.NewWriter(out, 2, 4, 2, ' ', 0)
+	var table bytes.Buffer
+	tw := tabwriter.NewWriter(&table, 2, 4, 2, ' ', 0)
 	fmt.Fprintln(tw, "demo duty\tstatus\tD2 m\tU2 m/s\tT2 K\tshaft kW\tverdict\twarnings")
 	for _, f := range files {
 		body, err := os.ReadFile(f)
@@ -75,11 +79,19 @@ func runDemo(ctx context.Context, base, dir, token string, out io.Writer) error 
 			continue
 		}
 		var codes []string
+		seen := map[string]bool{}
 		for _, w := range r.Warnings {
-			codes = append(codes, w.Code)
+			if !seen[w.Code] { // a code may come once per station (water-dew-point)
+				seen[w.Code] = true
+				codes = append(codes, w.Code)
+			}
 		}
 		fmt.Fprintf(tw, "%s\t%d\t%.3f\t%.0f\t%.1f\t%.0f\t%s\t%s\n", name, resp.StatusCode, r.Geometry.TipDiameter,
 			r.Velocities.TipSpeed, r.Discharge.Temperature, r.Power.Shaft/1e3, r.Verdict, strings.Join(codes, ","))
 	}
-	return tw.Flush()
+	if err := tw.Flush(); err != nil {
+		return err
+	}
+	_, err = out.Write(append([]byte("\n"), table.Bytes()...))
+	return err
 }

@@ -10,6 +10,7 @@ import (
 	"net"
 	"net/http"
 	"runtime/debug"
+	"sync"
 	"sync/atomic"
 	"time"
 
@@ -21,7 +22,8 @@ import (
 )
 
 // run starts the server and blocks until ctx ends (SIGTERM or SIGINT in
-// main), then shuts down gracefully: readiness off, after
+// main), then shuts down gracefully: readiness off (from then on every
+// answer says Connection: close, api.Options.Ready), after
 // cfg.ShutdownDelay the listener closes, and in-flight requests get
 // cfg.ShutdownGrace to finish. It returns nil after a clean shutdown.
 func run(ctx context.Context, args []string, getenv func(string) string, stdout, stderr io.Writer) error {
@@ -54,6 +56,8 @@ func run(ctx context.Context, args []string, getenv func(string) string, stdout,
 		MaxHeaderBytes:    1 << 16,
 		ErrorLog:          slog.NewLogLogger(log.Handler(), slog.LevelWarn),
 	}
+	conns := newConnTracker()
+	srv.ConnState = conns.track
 	scheme, useTLS := "http", cfg.TLSCertFile != ""
 	if useTLS {
 		pair, err := tls.LoadX509KeyPair(cfg.TLSCertFile, cfg.TLSKeyFile)
@@ -63,10 +67,11 @@ func run(ctx context.Context, args []string, getenv func(string) string, stdout,
 		srv.TLSConfig = &tls.Config{Certificates: []tls.Certificate{pair}, MinVersion: tls.VersionTLS12}
 		scheme = "https"
 	}
-	ln, err := net.Listen("tcp", cfg.Addr)
+	tcp, err := net.Listen("tcp", cfg.Addr)
 	if err != nil {
 		return fmt.Errorf("listen on %s: %w", cfg.Addr, err)
 	}
+	ln := &drainingListener{TCPListener: tcp.(*net.TCPListener)}
 	base := scheme + "://" + ln.Addr().String()
 	errc := make(chan error, 1)
 	go func() { // from here on srv belongs to Serve: its fields are not read
@@ -109,10 +114,97 @@ func run(ctx context.Context, args []string, getenv func(string) string, stdout,
 	}
 	sctx, cancel := context.WithTimeout(context.Background(), cfg.ShutdownGrace)
 	defer cancel()
+	// Close the listener first and let every accepted connection finish
+	// its request (each answer says Connection: close) before Shutdown;
+	// the listener first accepts what clients have already queued
+	// (drainingListener), which closing it would reset:
+	// net/http drops, unanswered, a request it reads once Shutdown has
+	// begun, and with keep-alives ending every connection carries one
+	// request that may arrive just then. Idle connections are closed.
+	_ = ln.Close()
+	select { // Serve returns once the listener has taken the last queued connection
+	case <-errc:
+	case <-sctx.Done():
+	}
+	conns.drain(sctx)
 	if err := srv.Shutdown(sctx); err != nil {
 		_ = srv.Close()
 		return fmt.Errorf("shutdown: requests still running after the grace period of %s were cut: %w", cfg.ShutdownGrace, err)
 	}
 	log.Info("stopped")
 	return nil
+}
+
+// connTracker follows the server's connections (http.Server.ConnState) so
+// that shutdown can wait for the accepted ones to finish.
+type connTracker struct {
+	mu    sync.Mutex
+	conns map[net.Conn]http.ConnState
+}
+
+func newConnTracker() *connTracker { return &connTracker{conns: map[net.Conn]http.ConnState{}} }
+
+func (t *connTracker) track(c net.Conn, st http.ConnState) {
+	t.mu.Lock()
+	defer t.mu.Unlock()
+	switch st {
+	case http.StateClosed, http.StateHijacked:
+		delete(t.conns, c)
+	default:
+		t.conns[c] = st
+	}
+}
+
+// drain closes idle connections and waits until no connection is left or
+// ctx ends.
+func (t *connTracker) drain(ctx context.Context) {
+	tick := time.NewTicker(5 * time.Millisecond)
+	defer tick.Stop()
+	for {
+		t.mu.Lock()
+		for c, st := range t.conns {
+			if st == http.StateIdle {
+				_ = c.Close()
+			}
+		}
+		n := len(t.conns)
+		t.mu.Unlock()
+		if n == 0 {
+			return
+		}
+		select {
+		case <-ctx.Done():
+			return
+		case <-tick.C:
+		}
+	}
+}
+
+// acceptDrain is how long a closing listener keeps accepting the
+// connections clients have already opened.
+const acceptDrain = 50 * time.Millisecond
+
+// drainingListener closes gracefully: Close makes it accept, for
+// acceptDrain more, the connections the kernel has already completed
+// (closing a listening socket resets every connection still queued, and a
+// request written on one is lost), then close.
+type drainingListener struct {
+	*net.TCPListener
+	closing atomic.Bool
+}
+
+func (l *drainingListener) Accept() (net.Conn, error) {
+	c, err := l.TCPListener.Accept()
+	if err != nil && l.closing.Load() {
+		_ = l.TCPListener.Close()
+		return nil, net.ErrClosed
+	}
+	return c, err
+}
+
+func (l *drainingListener) Close() error {
+	if l.closing.Swap(true) {
+		return nil
+	}
+	return l.TCPListener.SetDeadline(time.Now().Add(acceptDrain))
 }

@@ -8,6 +8,7 @@ import (
 	"io"
 	"net"
 	"net/http"
+	"net/http/httptest"
 	"path/filepath"
 	"strings"
 	"sync"
@@ -16,6 +17,10 @@ import (
 
 	"github.com/stretchr/testify/assert"
 	"github.com/stretchr/testify/require"
+
+	"stagewright/api"
+	"stagewright/openapi"
+	"stagewright/service"
 )
 
 // envOf is a getenv over a fixed map.
@@ -175,4 +180,46 @@ func TestRunRejectsBadConfig(t *testing.T) {
 			assert.Contains(t, err.Error(), tc.want)
 		})
 	}
+}
+
+// writeCounter counts the writes it receives.
+type writeCounter struct {
+	bytes.Buffer
+	writes int
+}
+
+func (w *writeCounter) Write(p []byte) (int, error) {
+	w.writes++
+	return w.Buffer.Write(p)
+}
+
+// TestDemoTableClean (issue 13, newcomer's papercuts): the demo table is
+// written in one piece (so the server's log lines on stderr cannot fall
+// between its rows in a terminal) and its warnings column names each code
+// once (it read "water-dew-point,water-dew-point").
+func TestDemoTableClean(t *testing.T) {
+	h, err := api.NewRouter(service.New(), api.Options{Spec: openapi.Swagger2()})
+	require.NoError(t, err)
+	srv := httptest.NewServer(h)
+	defer srv.Close()
+	var out writeCounter
+	require.NoError(t, runDemo(context.Background(), srv.URL, filepath.Join("..", "..", "testdata", "stages"), "", &out))
+	assert.Equal(t, 1, out.writes, "the table in one write")
+	rows := strings.Split(strings.TrimSpace(out.String()), "\n")
+	require.Greater(t, len(rows), 5)
+	withWarnings := 0
+	for _, row := range rows[1:] {
+		f := strings.Fields(row)
+		if len(f) < 8 {
+			continue
+		}
+		codes := strings.Split(f[len(f)-1], ",")
+		withWarnings++
+		seen := map[string]bool{}
+		for _, c := range codes {
+			assert.False(t, seen[c], "code %s repeated in %q", c, row)
+			seen[c] = true
+		}
+	}
+	assert.Positive(t, withWarnings)
 }

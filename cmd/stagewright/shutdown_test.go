@@ -192,6 +192,7 @@ func TestShutdownGraceExceeded(t *testing.T) {
 	req, err := http.NewRequest(http.MethodPost, base+"/v1/stage/size", pr)
 	require.NoError(t, err)
 	req.ContentLength = 1000
+	req.Header.Set("Content-Type", "application/json")
 	done := make(chan error, 1)
 	go func() {
 		resp, err := http.DefaultClient.Do(req)

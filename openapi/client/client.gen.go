@@ -1490,7 +1490,7 @@ type ApiDriverSpec struct {
 // Example: 750000
 type ApiDriverSpecRating0 = float64
 
-// ApiDriverSpecRating1 a power with its unit, e.g. "1 unit"
+// ApiDriverSpecRating1 a power with its unit, e.g. "520 kW", "700 hp"
 type ApiDriverSpecRating1 = string
 
 // ApiDriverSpec_Rating Rating is the rating of an installed driver, W (or "kW", "MW", "hp"); its margin is graded.
@@ -1627,7 +1627,8 @@ type ApiGasSpec struct {
 	// Example: 1005
 	Cp *float64 `json:"cp,omitempty"`
 
-	// Gamma Gamma is the ratio of specific heats cp/cv for "ideal-constant".
+	// Gamma Gamma is the ratio of specific heats cp/cv for "ideal-constant":
+	// above 1, at most 5/3 (1.6667 accepted).
 	//
 	// Example: 1.4
 	Gamma *float64 `json:"gamma,omitempty"`
@@ -1877,7 +1878,7 @@ type ApiInletSpec struct {
 // Example: 0.2
 type ApiInletSpecEyeTipDiameter0 = float64
 
-// ApiInletSpecEyeTipDiameter1 a length with its unit, e.g. "1 unit"
+// ApiInletSpecEyeTipDiameter1 a length with its unit, e.g. "310 mm", "12.2 in"
 type ApiInletSpecEyeTipDiameter1 = string
 
 // ApiInletSpec_EyeTipDiameter EyeTipDiameter is a given eye tip diameter of an axial eye, m.
@@ -1963,7 +1964,7 @@ type ApiIntercoolingSpec_OutletTemperature struct {
 // Example: 20000
 type ApiIntercoolingSpecPressureDrop0 = float64
 
-// ApiIntercoolingSpecPressureDrop1 a pressure-difference with its unit, e.g. "1 unit"
+// ApiIntercoolingSpecPressureDrop1 a pressure-difference with its unit, e.g. "0.3 bar", "4 psi"
 type ApiIntercoolingSpecPressureDrop1 = string
 
 // ApiIntercoolingSpec_PressureDrop PressureDrop is the gas pressure drop across each cooler, Pa (or
@@ -2198,7 +2199,7 @@ type ApiMachineCoolerSpec_OutletTemperature struct {
 // Example: 30000
 type ApiMachineCoolerSpecPressureDrop0 = float64
 
-// ApiMachineCoolerSpecPressureDrop1 a pressure-difference with its unit, e.g. "1 unit"
+// ApiMachineCoolerSpecPressureDrop1 a pressure-difference with its unit, e.g. "0.3 bar", "4 psi"
 type ApiMachineCoolerSpecPressureDrop1 = string
 
 // ApiMachineCoolerSpec_PressureDrop PressureDrop is the gas pressure drop across the cooler, Pa (or "0.3 bar").
@@ -2236,7 +2237,7 @@ type ApiMachineDriverSpec struct {
 // Example: 750000
 type ApiMachineDriverSpecRating0 = float64
 
-// ApiMachineDriverSpecRating1 a power with its unit, e.g. "1 unit"
+// ApiMachineDriverSpecRating1 a power with its unit, e.g. "520 kW", "700 hp"
 type ApiMachineDriverSpecRating1 = string
 
 // ApiMachineDriverSpec_Rating Rating is the driver's rated power, W (or "kW", "MW", "hp").
@@ -2274,7 +2275,7 @@ type ApiMachineInletSpec struct {
 // Example: 0.19
 type ApiMachineInletSpecDiameter0 = float64
 
-// ApiMachineInletSpecDiameter1 a length with its unit, e.g. "1 unit"
+// ApiMachineInletSpecDiameter1 a length with its unit, e.g. "310 mm", "12.2 in"
 type ApiMachineInletSpecDiameter1 = string
 
 // ApiMachineInletSpec_Diameter Diameter is the blade inlet diameter D1 of a radial inlet, m.
@@ -2287,7 +2288,7 @@ type ApiMachineInletSpec_Diameter struct {
 // Example: 0.07
 type ApiMachineInletSpecEyeHubDiameter0 = float64
 
-// ApiMachineInletSpecEyeHubDiameter1 a length with its unit, e.g. "1 unit"
+// ApiMachineInletSpecEyeHubDiameter1 a length with its unit, e.g. "310 mm", "12.2 in"
 type ApiMachineInletSpecEyeHubDiameter1 = string
 
 // ApiMachineInletSpec_EyeHubDiameter EyeHubDiameter is the hub diameter at the eye of an axial eye, m.
@@ -2300,7 +2301,7 @@ type ApiMachineInletSpec_EyeHubDiameter struct {
 // Example: 0.2
 type ApiMachineInletSpecEyeTipDiameter0 = float64
 
-// ApiMachineInletSpecEyeTipDiameter1 a length with its unit, e.g. "1 unit"
+// ApiMachineInletSpecEyeTipDiameter1 a length with its unit, e.g. "310 mm", "12.2 in"
 type ApiMachineInletSpecEyeTipDiameter1 = string
 
 // ApiMachineInletSpec_EyeTipDiameter EyeTipDiameter is the eye (shroud) diameter D1t of an axial eye, m.
@@ -2318,7 +2319,7 @@ type ApiMachineInletSpecType string
 // Example: 0.03
 type ApiMachineInletSpecWidth0 = float64
 
-// ApiMachineInletSpecWidth1 a length with its unit, e.g. "1 unit"
+// ApiMachineInletSpecWidth1 a length with its unit, e.g. "310 mm", "12.2 in"
 type ApiMachineInletSpecWidth1 = string
 
 // ApiMachineInletSpec_Width Width is the blade inlet width b1 of a radial inlet, m.
@@ -2454,7 +2455,7 @@ type ApiMachineStageSpecConstruction string
 // Example: 0.021
 type ApiMachineStageSpecExitWidth0 = float64
 
-// ApiMachineStageSpecExitWidth1 a length with its unit, e.g. "1 unit"
+// ApiMachineStageSpecExitWidth1 a length with its unit, e.g. "310 mm", "12.2 in"
 type ApiMachineStageSpecExitWidth1 = string
 
 // ApiMachineStageSpec_ExitWidth ExitWidth is the impeller exit width b2, m (or "mm", "in").
@@ -2478,7 +2479,7 @@ type ApiMachineStageSpecSlipModel string
 // Example: 0.42
 type ApiMachineStageSpecTipDiameter0 = float64
 
-// ApiMachineStageSpecTipDiameter1 a length with its unit, e.g. "1 unit"
+// ApiMachineStageSpecTipDiameter1 a length with its unit, e.g. "310 mm", "12.2 in"
 type ApiMachineStageSpecTipDiameter1 = string
 
 // ApiMachineStageSpec_TipDiameter TipDiameter is the impeller tip diameter D2, m (or "mm", "in").
@@ -2890,7 +2891,10 @@ type ApiPropertiesRequest_Temperature struct {
 
 // ApiPropertiesResponse defines model for api.PropertiesResponse.
 type ApiPropertiesResponse struct {
-	Cautions string `json:"cautions"`
+	// Cautions Cautions are short sentences, as in a stage answer: what the numbers
+	// are, and that the manufacturer, the standards, local codes and
+	// licensed engineering practice govern.
+	Cautions []string `json:"cautions"`
 
 	// Composition Composition is the normalised mole-fraction composition.
 	Composition []ApiComponentFraction `json:"composition"`
@@ -3345,7 +3349,7 @@ type ApiSectionRequest_DischargePressure struct {
 // Example: 40000
 type ApiSectionRequestMechanicalLosses0 = float64
 
-// ApiSectionRequestMechanicalLosses1 a power with its unit, e.g. "1 unit"
+// ApiSectionRequestMechanicalLosses1 a power with its unit, e.g. "520 kW", "700 hp"
 type ApiSectionRequestMechanicalLosses1 = string
 
 // ApiSectionRequest_MechanicalLosses MechanicalLosses are the section's bearing, seal and gear losses, W, counted once.
@@ -3375,7 +3379,7 @@ type ApiSectionRequest_Speed struct {
 // Example: 0.42
 type ApiSectionRequestTipDiameter0 = float64
 
-// ApiSectionRequestTipDiameter1 a length with its unit, e.g. "1 unit"
+// ApiSectionRequestTipDiameter1 a length with its unit, e.g. "310 mm", "12.2 in"
 type ApiSectionRequestTipDiameter1 = string
 
 // ApiSectionRequest_TipDiameter TipDiameter is one tip diameter for every stage of a "geared" section, m.
@@ -3712,13 +3716,14 @@ type ApiStageRequest struct {
 	LimitOverrides *map[string]ApiLevelOverrideSpec `json:"limit_overrides,omitempty"`
 
 	// MechanicalEfficiency MechanicalEfficiency is gas power over shaft power (bearing and seal
-	// losses); default 0.98.
+	// losses), 0.8 to 1; default 0.98.
 	//
 	// Example: 0.98
 	MechanicalEfficiency *float64 `json:"mechanical_efficiency,omitempty"`
 
 	// MechanicalLosses MechanicalLosses are the bearing, seal and gear losses, W (or "kW"),
-	// instead of mechanical_efficiency: shaft power = gas power + losses.
+	// instead of mechanical_efficiency: shaft power = gas power + losses;
+	// at most a quarter of the gas power.
 	MechanicalLosses *ApiStageRequest_MechanicalLosses `json:"mechanical_losses,omitempty"`
 	Options          *ApiOptionsSpec                   `json:"options,omitempty"`
 
@@ -3763,16 +3768,18 @@ type ApiStageRequest_DischargePressure struct {
 }
 
 // ApiStageRequestMechanicalLosses0 MechanicalLosses are the bearing, seal and gear losses, W (or "kW"),
-// instead of mechanical_efficiency: shaft power = gas power + losses.
+// instead of mechanical_efficiency: shaft power = gas power + losses;
+// at most a quarter of the gas power.
 //
 // Example: 12000
 type ApiStageRequestMechanicalLosses0 = float64
 
-// ApiStageRequestMechanicalLosses1 a power with its unit, e.g. "1 unit"
+// ApiStageRequestMechanicalLosses1 a power with its unit, e.g. "520 kW", "700 hp"
 type ApiStageRequestMechanicalLosses1 = string
 
 // ApiStageRequest_MechanicalLosses MechanicalLosses are the bearing, seal and gear losses, W (or "kW"),
-// instead of mechanical_efficiency: shaft power = gas power + losses.
+// instead of mechanical_efficiency: shaft power = gas power + losses;
+// at most a quarter of the gas power.
 type ApiStageRequest_MechanicalLosses struct {
 	union json.RawMessage
 }
@@ -3800,7 +3807,7 @@ type ApiStageRequest_Speed struct {
 // Example: 0.42
 type ApiStageRequestTipDiameter0 = float64
 
-// ApiStageRequestTipDiameter1 a length with its unit, e.g. "1 unit"
+// ApiStageRequestTipDiameter1 a length with its unit, e.g. "310 mm", "12.2 in"
 type ApiStageRequestTipDiameter1 = string
 
 // ApiStageRequest_TipDiameter TipDiameter is a given impeller tip diameter D2, m (or "mm", "in"):
@@ -7005,24 +7012,33 @@ func WithRequestEditorFn(fn RequestEditorFn) ClientOption {
 // The interface specification for the client above.
 type ClientInterface interface {
 
+	// Docs Interactive API reference
+	//
+	// Swagger UI (from the swaggo/gin-swagger Go module) over the served /openapi.json, with "try it out" against this service (same origin). GET /docs redirects here. Open without a token; the /v1 operations it calls need one when the service has tokens (Authorize).
+	//
+	// Corresponds with GET /docs/index.html (the `Docs` operationId).
+	Docs(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error)
+
 	// Health Liveness
+	//
+	// 200 while the process serves HTTP (liveness probe); it does not check readiness. Not under authentication.
 	//
 	// Corresponds with GET /healthz (the `Health` operationId).
 	Health(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error)
 
-	// GetMetrics Prometheus metrics
+	// Metrics Prometheus metrics
 	//
 	// Request counts and latency by route, method and status, requests in flight, problem responses by type, build information, Go runtime and process metrics, in the Prometheus text exposition format. Not under authentication.
 	//
-	// Corresponds with GET /metrics (the `GetMetrics` operationId).
-	GetMetrics(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error)
+	// Corresponds with GET /metrics (the `Metrics` operationId).
+	Metrics(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error)
 
-	// GetReadyz Readiness
+	// Readiness Readiness
 	//
 	// 200 while the service takes traffic; 503 problem+json once shutdown has begun, so that load balancers stop sending requests.
 	//
-	// Corresponds with GET /readyz (the `GetReadyz` operationId).
-	GetReadyz(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error)
+	// Corresponds with GET /readyz (the `Readiness` operationId).
+	Readiness(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error)
 
 	// GasComponents The gas component catalogue
 	//
@@ -7229,13 +7245,34 @@ type ClientInterface interface {
 	// Corresponds with POST /v1/stage/size/compact (the `SizeStageCompact` operationId).
 	SizeStageCompact(ctx context.Context, body SizeStageCompactJSONRequestBody, reqEditors ...RequestEditorFn) (*http.Response, error)
 
-	// GetVersion Build and model version
+	// Version Build and model version
 	//
-	// Corresponds with GET /version (the `GetVersion` operationId).
-	GetVersion(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error)
+	// The build (version, commit, Go toolchain) and the physics model version that answer. Not under authentication.
+	//
+	// Corresponds with GET /version (the `Version` operationId).
+	Version(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error)
+}
+
+// Docs Interactive API reference
+//
+// Swagger UI (from the swaggo/gin-swagger Go module) over the served /openapi.json, with "try it out" against this service (same origin). GET /docs redirects here. Open without a token; the /v1 operations it calls need one when the service has tokens (Authorize).
+//
+// Corresponds with GET /docs/index.html (the `Docs` operationId).
+func (c *Client) Docs(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error) {
+	req, err := NewDocsRequest(c.Server)
+	if err != nil {
+		return nil, err
+	}
+	req = req.WithContext(ctx)
+	if err := c.applyEditors(ctx, req, reqEditors); err != nil {
+		return nil, err
+	}
+	return c.Client.Do(req)
 }
 
 // Health Liveness
+//
+// 200 while the process serves HTTP (liveness probe); it does not check readiness. Not under authentication.
 //
 // Corresponds with GET /healthz (the `Health` operationId).
 func (c *Client) Health(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error) {
@@ -7250,13 +7287,13 @@ func (c *Client) Health(ctx context.Context, reqEditors ...RequestEditorFn) (*ht
 	return c.Client.Do(req)
 }
 
-// GetMetrics Prometheus metrics
+// Metrics Prometheus metrics
 //
 // Request counts and latency by route, method and status, requests in flight, problem responses by type, build information, Go runtime and process metrics, in the Prometheus text exposition format. Not under authentication.
 //
-// Corresponds with GET /metrics (the `GetMetrics` operationId).
-func (c *Client) GetMetrics(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error) {
-	req, err := NewGetMetricsRequest(c.Server)
+// Corresponds with GET /metrics (the `Metrics` operationId).
+func (c *Client) Metrics(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error) {
+	req, err := NewMetricsRequest(c.Server)
 	if err != nil {
 		return nil, err
 	}
@@ -7267,13 +7304,13 @@ func (c *Client) GetMetrics(ctx context.Context, reqEditors ...RequestEditorFn) 
 	return c.Client.Do(req)
 }
 
-// GetReadyz Readiness
+// Readiness Readiness
 //
 // 200 while the service takes traffic; 503 problem+json once shutdown has begun, so that load balancers stop sending requests.
 //
-// Corresponds with GET /readyz (the `GetReadyz` operationId).
-func (c *Client) GetReadyz(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error) {
-	req, err := NewGetReadyzRequest(c.Server)
+// Corresponds with GET /readyz (the `Readiness` operationId).
+func (c *Client) Readiness(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error) {
+	req, err := NewReadinessRequest(c.Server)
 	if err != nil {
 		return nil, err
 	}
@@ -7719,11 +7756,13 @@ func (c *Client) SizeStageCompact(ctx context.Context, body SizeStageCompactJSON
 	return c.Client.Do(req)
 }
 
-// GetVersion Build and model version
+// Version Build and model version
 //
-// Corresponds with GET /version (the `GetVersion` operationId).
-func (c *Client) GetVersion(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error) {
-	req, err := NewGetVersionRequest(c.Server)
+// The build (version, commit, Go toolchain) and the physics model version that answer. Not under authentication.
+//
+// Corresponds with GET /version (the `Version` operationId).
+func (c *Client) Version(ctx context.Context, reqEditors ...RequestEditorFn) (*http.Response, error) {
+	req, err := NewVersionRequest(c.Server)
 	if err != nil {
 		return nil, err
 	}
@@ -7732,6 +7771,33 @@ func (c *Client) GetVersion(ctx context.Context, reqEditors ...RequestEditorFn) 
 		return nil, err
 	}
 	return c.Client.Do(req)
+}
+
+// NewDocsRequest constructs an http.Request for the Docs method
+func NewDocsRequest(server string) (*http.Request, error) {
+	var err error
+
+	serverURL, err := url.Parse(server)
+	if err != nil {
+		return nil, err
+	}
+
+	operationPath := fmt.Sprintf("/docs/index.html")
+	if operationPath[0] == '/' {
+		operationPath = "." + operationPath
+	}
+
+	queryURL, err := serverURL.Parse(operationPath)
+	if err != nil {
+		return nil, err
+	}
+
+	req, err := http.NewRequest(http.MethodGet, queryURL.String(), nil)
+	if err != nil {
+		return nil, err
+	}
+
+	return req, nil
 }
 
 // NewHealthRequest constructs an http.Request for the Health method
@@ -7761,8 +7827,8 @@ func NewHealthRequest(server string) (*http.Request, error) {
 	return req, nil
 }
 
-// NewGetMetricsRequest constructs an http.Request for the GetMetrics method
-func NewGetMetricsRequest(server string) (*http.Request, error) {
+// NewMetricsRequest constructs an http.Request for the Metrics method
+func NewMetricsRequest(server string) (*http.Request, error) {
 	var err error
 
 	serverURL, err := url.Parse(server)
@@ -7788,8 +7854,8 @@ func NewGetMetricsRequest(server string) (*http.Request, error) {
 	return req, nil
 }
 
-// NewGetReadyzRequest constructs an http.Request for the GetReadyz method
-func NewGetReadyzRequest(server string) (*http.Request, error) {
+// NewReadinessRequest constructs an http.Request for the Readiness method
+func NewReadinessRequest(server string) (*http.Request, error) {
 	var err error
 
 	serverURL, err := url.Parse(server)
@@ -8282,8 +8348,8 @@ func NewSizeStageCompactRequestWithBody(server string, contentType string, body 
 	return req, nil
 }
 
-// NewGetVersionRequest constructs an http.Request for the GetVersion method
-func NewGetVersionRequest(server string) (*http.Request, error) {
+// NewVersionRequest constructs an http.Request for the Version method
+func NewVersionRequest(server string) (*http.Request, error) {
 	var err error
 
 	serverURL, err := url.Parse(server)
@@ -8353,30 +8419,41 @@ func WithBaseURL(baseURL string) ClientOption {
 // ClientWithResponsesInterface is the interface specification for the client with responses above.
 type ClientWithResponsesInterface interface {
 
+	// DocsWithResponse Interactive API reference
+	//
+	// Swagger UI (from the swaggo/gin-swagger Go module) over the served /openapi.json, with "try it out" against this service (same origin). GET /docs redirects here. Open without a token; the /v1 operations it calls need one when the service has tokens (Authorize).
+	//
+	// Returns a wrapper object for the known response body format(s).
+	//
+	// Corresponds with GET /docs/index.html (the `Docs` operationId).
+	DocsWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*DocsResponse, error)
+
 	// HealthWithResponse Liveness
+	//
+	// 200 while the process serves HTTP (liveness probe); it does not check readiness. Not under authentication.
 	//
 	// Returns a wrapper object for the known response body format(s).
 	//
 	// Corresponds with GET /healthz (the `Health` operationId).
 	HealthWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*HealthResponse, error)
 
-	// GetMetricsWithResponse Prometheus metrics
+	// MetricsWithResponse Prometheus metrics
 	//
 	// Request counts and latency by route, method and status, requests in flight, problem responses by type, build information, Go runtime and process metrics, in the Prometheus text exposition format. Not under authentication.
 	//
 	// Returns a wrapper object for the known response body format(s).
 	//
-	// Corresponds with GET /metrics (the `GetMetrics` operationId).
-	GetMetricsWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*GetMetricsResponse, error)
+	// Corresponds with GET /metrics (the `Metrics` operationId).
+	MetricsWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*MetricsResponse, error)
 
-	// GetReadyzWithResponse Readiness
+	// ReadinessWithResponse Readiness
 	//
 	// 200 while the service takes traffic; 503 problem+json once shutdown has begun, so that load balancers stop sending requests.
 	//
 	// Returns a wrapper object for the known response body format(s).
 	//
-	// Corresponds with GET /readyz (the `GetReadyz` operationId).
-	GetReadyzWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*GetReadyzResponse, error)
+	// Corresponds with GET /readyz (the `Readiness` operationId).
+	ReadinessWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*ReadinessResponse, error)
 
 	// GasComponentsWithResponse The gas component catalogue
 	//
@@ -8585,12 +8662,48 @@ type ClientWithResponsesInterface interface {
 	// Corresponds with POST /v1/stage/size/compact (the `SizeStageCompact` operationId).
 	SizeStageCompactWithResponse(ctx context.Context, body SizeStageCompactJSONRequestBody, reqEditors ...RequestEditorFn) (*SizeStageCompactResponse, error)
 
-	// GetVersionWithResponse Build and model version
+	// VersionWithResponse Build and model version
+	//
+	// The build (version, commit, Go toolchain) and the physics model version that answer. Not under authentication.
 	//
 	// Returns a wrapper object for the known response body format(s).
 	//
-	// Corresponds with GET /version (the `GetVersion` operationId).
-	GetVersionWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*GetVersionResponse, error)
+	// Corresponds with GET /version (the `Version` operationId).
+	VersionWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*VersionResponse, error)
+}
+
+type DocsResponse struct {
+	Body         []byte
+	HTTPResponse *http.Response
+}
+
+// GetBody returns the raw response body bytes
+func (r DocsResponse) GetBody() []byte {
+	return r.Body
+}
+
+// Status returns HTTPResponse.Status
+func (r DocsResponse) Status() string {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.Status
+	}
+	return http.StatusText(0)
+}
+
+// StatusCode returns HTTPResponse.StatusCode
+func (r DocsResponse) StatusCode() int {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.StatusCode
+	}
+	return 0
+}
+
+// ContentType is a convenience method to retrieve the Content-Type value from the HTTP response headers
+func (r DocsResponse) ContentType() string {
+	if r.HTTPResponse != nil {
+		return r.HTTPResponse.Header.Get("Content-Type")
+	}
+	return ""
 }
 
 type HealthResponse struct {
@@ -8634,18 +8747,18 @@ func (r HealthResponse) ContentType() string {
 	return ""
 }
 
-type GetMetricsResponse struct {
+type MetricsResponse struct {
 	Body         []byte
 	HTTPResponse *http.Response
 }
 
 // GetBody returns the raw response body bytes
-func (r GetMetricsResponse) GetBody() []byte {
+func (r MetricsResponse) GetBody() []byte {
 	return r.Body
 }
 
 // Status returns HTTPResponse.Status
-func (r GetMetricsResponse) Status() string {
+func (r MetricsResponse) Status() string {
 	if r.HTTPResponse != nil {
 		return r.HTTPResponse.Status
 	}
@@ -8653,7 +8766,7 @@ func (r GetMetricsResponse) Status() string {
 }
 
 // StatusCode returns HTTPResponse.StatusCode
-func (r GetMetricsResponse) StatusCode() int {
+func (r MetricsResponse) StatusCode() int {
 	if r.HTTPResponse != nil {
 		return r.HTTPResponse.StatusCode
 	}
@@ -8661,14 +8774,14 @@ func (r GetMetricsResponse) StatusCode() int {
 }
 
 // ContentType is a convenience method to retrieve the Content-Type value from the HTTP response headers
-func (r GetMetricsResponse) ContentType() string {
+func (r MetricsResponse) ContentType() string {
 	if r.HTTPResponse != nil {
 		return r.HTTPResponse.Header.Get("Content-Type")
 	}
 	return ""
 }
 
-type GetReadyzResponse struct {
+type ReadinessResponse struct {
 	Body         []byte
 	HTTPResponse *http.Response
 	// JSON200 the response for an HTTP 200 `application/json` response
@@ -8678,22 +8791,22 @@ type GetReadyzResponse struct {
 }
 
 // GetJSON200 returns the response for an HTTP 200 `application/json` response
-func (r GetReadyzResponse) GetJSON200() *ApiHealth {
+func (r ReadinessResponse) GetJSON200() *ApiHealth {
 	return r.JSON200
 }
 
 // GetApplicationproblemJSON503 returns the response for an HTTP 503 `application/problem+json` response
-func (r GetReadyzResponse) GetApplicationproblemJSON503() *ApiProblem {
+func (r ReadinessResponse) GetApplicationproblemJSON503() *ApiProblem {
 	return r.ApplicationproblemJSON503
 }
 
 // GetBody returns the raw response body bytes
-func (r GetReadyzResponse) GetBody() []byte {
+func (r ReadinessResponse) GetBody() []byte {
 	return r.Body
 }
 
 // Status returns HTTPResponse.Status
-func (r GetReadyzResponse) Status() string {
+func (r ReadinessResponse) Status() string {
 	if r.HTTPResponse != nil {
 		return r.HTTPResponse.Status
 	}
@@ -8701,7 +8814,7 @@ func (r GetReadyzResponse) Status() string {
 }
 
 // StatusCode returns HTTPResponse.StatusCode
-func (r GetReadyzResponse) StatusCode() int {
+func (r ReadinessResponse) StatusCode() int {
 	if r.HTTPResponse != nil {
 		return r.HTTPResponse.StatusCode
 	}
@@ -8709,7 +8822,7 @@ func (r GetReadyzResponse) StatusCode() int {
 }
 
 // ContentType is a convenience method to retrieve the Content-Type value from the HTTP response headers
-func (r GetReadyzResponse) ContentType() string {
+func (r ReadinessResponse) ContentType() string {
 	if r.HTTPResponse != nil {
 		return r.HTTPResponse.Header.Get("Content-Type")
 	}
@@ -8780,8 +8893,12 @@ type GasPropertiesResponse struct {
 	ApplicationproblemJSON400 *ApiProblem
 	// ApplicationproblemJSON401 the response for an HTTP 401 `application/problem+json` response
 	ApplicationproblemJSON401 *ApiProblem
+	// ApplicationproblemJSON408 the response for an HTTP 408 `application/problem+json` response
+	ApplicationproblemJSON408 *ApiProblem
 	// ApplicationproblemJSON413 the response for an HTTP 413 `application/problem+json` response
 	ApplicationproblemJSON413 *ApiProblem
+	// ApplicationproblemJSON415 the response for an HTTP 415 `application/problem+json` response
+	ApplicationproblemJSON415 *ApiProblem
 	// ApplicationproblemJSON422 the response for an HTTP 422 `application/problem+json` response
 	ApplicationproblemJSON422 *ApiProblem
 	// ApplicationproblemJSON500 the response for an HTTP 500 `application/problem+json` response
@@ -8807,9 +8924,19 @@ func (r GasPropertiesResponse) GetApplicationproblemJSON401() *ApiProblem {
 	return r.ApplicationproblemJSON401
 }
 
+// GetApplicationproblemJSON408 returns the response for an HTTP 408 `application/problem+json` response
+func (r GasPropertiesResponse) GetApplicationproblemJSON408() *ApiProblem {
+	return r.ApplicationproblemJSON408
+}
+
 // GetApplicationproblemJSON413 returns the response for an HTTP 413 `application/problem+json` response
 func (r GasPropertiesResponse) GetApplicationproblemJSON413() *ApiProblem {
 	return r.ApplicationproblemJSON413
+}
+
+// GetApplicationproblemJSON415 returns the response for an HTTP 415 `application/problem+json` response
+func (r GasPropertiesResponse) GetApplicationproblemJSON415() *ApiProblem {
+	return r.ApplicationproblemJSON415
 }
 
 // GetApplicationproblemJSON422 returns the response for an HTTP 422 `application/problem+json` response
@@ -9396,8 +9523,12 @@ type SizeStageResponse struct {
 	ApplicationproblemJSON400 *ApiProblem
 	// ApplicationproblemJSON401 the response for an HTTP 401 `application/problem+json` response
 	ApplicationproblemJSON401 *ApiProblem
+	// ApplicationproblemJSON408 the response for an HTTP 408 `application/problem+json` response
+	ApplicationproblemJSON408 *ApiProblem
 	// ApplicationproblemJSON413 the response for an HTTP 413 `application/problem+json` response
 	ApplicationproblemJSON413 *ApiProblem
+	// ApplicationproblemJSON415 the response for an HTTP 415 `application/problem+json` response
+	ApplicationproblemJSON415 *ApiProblem
 	// ApplicationproblemJSON422 the response for an HTTP 422 `application/problem+json` response
 	ApplicationproblemJSON422 *ApiProblem
 	// ApplicationproblemJSON500 the response for an HTTP 500 `application/problem+json` response
@@ -9423,9 +9554,19 @@ func (r SizeStageResponse) GetApplicationproblemJSON401() *ApiProblem {
 	return r.ApplicationproblemJSON401
 }
 
+// GetApplicationproblemJSON408 returns the response for an HTTP 408 `application/problem+json` response
+func (r SizeStageResponse) GetApplicationproblemJSON408() *ApiProblem {
+	return r.ApplicationproblemJSON408
+}
+
 // GetApplicationproblemJSON413 returns the response for an HTTP 413 `application/problem+json` response
 func (r SizeStageResponse) GetApplicationproblemJSON413() *ApiProblem {
 	return r.ApplicationproblemJSON413
+}
+
+// GetApplicationproblemJSON415 returns the response for an HTTP 415 `application/problem+json` response
+func (r SizeStageResponse) GetApplicationproblemJSON415() *ApiProblem {
+	return r.ApplicationproblemJSON415
 }
 
 // GetApplicationproblemJSON422 returns the response for an HTTP 422 `application/problem+json` response
@@ -9486,8 +9627,12 @@ type SizeStageBatchResponse struct {
 	ApplicationproblemJSON400 *ApiProblem
 	// ApplicationproblemJSON401 the response for an HTTP 401 `application/problem+json` response
 	ApplicationproblemJSON401 *ApiProblem
+	// ApplicationproblemJSON408 the response for an HTTP 408 `application/problem+json` response
+	ApplicationproblemJSON408 *ApiProblem
 	// ApplicationproblemJSON413 the response for an HTTP 413 `application/problem+json` response
 	ApplicationproblemJSON413 *ApiProblem
+	// ApplicationproblemJSON415 the response for an HTTP 415 `application/problem+json` response
+	ApplicationproblemJSON415 *ApiProblem
 	// ApplicationproblemJSON500 the response for an HTTP 500 `application/problem+json` response
 	ApplicationproblemJSON500 *ApiProblem
 	// ApplicationproblemJSON503 the response for an HTTP 503 `application/problem+json` response
@@ -9511,9 +9656,19 @@ func (r SizeStageBatchResponse) GetApplicationproblemJSON401() *ApiProblem {
 	return r.ApplicationproblemJSON401
 }
 
+// GetApplicationproblemJSON408 returns the response for an HTTP 408 `application/problem+json` response
+func (r SizeStageBatchResponse) GetApplicationproblemJSON408() *ApiProblem {
+	return r.ApplicationproblemJSON408
+}
+
 // GetApplicationproblemJSON413 returns the response for an HTTP 413 `application/problem+json` response
 func (r SizeStageBatchResponse) GetApplicationproblemJSON413() *ApiProblem {
 	return r.ApplicationproblemJSON413
+}
+
+// GetApplicationproblemJSON415 returns the response for an HTTP 415 `application/problem+json` response
+func (r SizeStageBatchResponse) GetApplicationproblemJSON415() *ApiProblem {
+	return r.ApplicationproblemJSON415
 }
 
 // GetApplicationproblemJSON500 returns the response for an HTTP 500 `application/problem+json` response
@@ -9733,7 +9888,7 @@ func (r SizeStageCompactResponse) ContentType() string {
 	return ""
 }
 
-type GetVersionResponse struct {
+type VersionResponse struct {
 	Body         []byte
 	HTTPResponse *http.Response
 	// JSON200 the response for an HTTP 200 `application/json` response
@@ -9741,17 +9896,17 @@ type GetVersionResponse struct {
 }
 
 // GetJSON200 returns the response for an HTTP 200 `application/json` response
-func (r GetVersionResponse) GetJSON200() *ApiVersionInfo {
+func (r VersionResponse) GetJSON200() *ApiVersionInfo {
 	return r.JSON200
 }
 
 // GetBody returns the raw response body bytes
-func (r GetVersionResponse) GetBody() []byte {
+func (r VersionResponse) GetBody() []byte {
 	return r.Body
 }
 
 // Status returns HTTPResponse.Status
-func (r GetVersionResponse) Status() string {
+func (r VersionResponse) Status() string {
 	if r.HTTPResponse != nil {
 		return r.HTTPResponse.Status
 	}
@@ -9759,7 +9914,7 @@ func (r GetVersionResponse) Status() string {
 }
 
 // StatusCode returns HTTPResponse.StatusCode
-func (r GetVersionResponse) StatusCode() int {
+func (r VersionResponse) StatusCode() int {
 	if r.HTTPResponse != nil {
 		return r.HTTPResponse.StatusCode
 	}
@@ -9767,14 +9922,31 @@ func (r GetVersionResponse) StatusCode() int {
 }
 
 // ContentType is a convenience method to retrieve the Content-Type value from the HTTP response headers
-func (r GetVersionResponse) ContentType() string {
+func (r VersionResponse) ContentType() string {
 	if r.HTTPResponse != nil {
 		return r.HTTPResponse.Header.Get("Content-Type")
 	}
 	return ""
 }
 
+// DocsWithResponse Interactive API reference
+//
+// Swagger UI (from the swaggo/gin-swagger Go module) over the served /openapi.json, with "try it out" against this service (same origin). GET /docs redirects here. Open without a token; the /v1 operations it calls need one when the service has tokens (Authorize).
+//
+// Returns a wrapper object for the known response body format(s).
+//
+// Corresponds with GET /docs/index.html (the `Docs` operationId).
+func (c *ClientWithResponses) DocsWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*DocsResponse, error) {
+	rsp, err := c.Docs(ctx, reqEditors...)
+	if err != nil {
+		return nil, err
+	}
+	return ParseDocsResponse(rsp)
+}
+
 // HealthWithResponse Liveness
+//
+// 200 while the process serves HTTP (liveness probe); it does not check readiness. Not under authentication.
 //
 // Returns a wrapper object for the known response body format(s).
 //
@@ -9787,34 +9959,34 @@ func (c *ClientWithResponses) HealthWithResponse(ctx context.Context, reqEditors
 	return ParseHealthResponse(rsp)
 }
 
-// GetMetricsWithResponse Prometheus metrics
+// MetricsWithResponse Prometheus metrics
 //
 // Request counts and latency by route, method and status, requests in flight, problem responses by type, build information, Go runtime and process metrics, in the Prometheus text exposition format. Not under authentication.
 //
 // Returns a wrapper object for the known response body format(s).
 //
-// Corresponds with GET /metrics (the `GetMetrics` operationId).
-func (c *ClientWithResponses) GetMetricsWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*GetMetricsResponse, error) {
-	rsp, err := c.GetMetrics(ctx, reqEditors...)
+// Corresponds with GET /metrics (the `Metrics` operationId).
+func (c *ClientWithResponses) MetricsWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*MetricsResponse, error) {
+	rsp, err := c.Metrics(ctx, reqEditors...)
 	if err != nil {
 		return nil, err
 	}
-	return ParseGetMetricsResponse(rsp)
+	return ParseMetricsResponse(rsp)
 }
 
-// GetReadyzWithResponse Readiness
+// ReadinessWithResponse Readiness
 //
 // 200 while the service takes traffic; 503 problem+json once shutdown has begun, so that load balancers stop sending requests.
 //
 // Returns a wrapper object for the known response body format(s).
 //
-// Corresponds with GET /readyz (the `GetReadyz` operationId).
-func (c *ClientWithResponses) GetReadyzWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*GetReadyzResponse, error) {
-	rsp, err := c.GetReadyz(ctx, reqEditors...)
+// Corresponds with GET /readyz (the `Readiness` operationId).
+func (c *ClientWithResponses) ReadinessWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*ReadinessResponse, error) {
+	rsp, err := c.Readiness(ctx, reqEditors...)
 	if err != nil {
 		return nil, err
 	}
-	return ParseGetReadyzResponse(rsp)
+	return ParseReadinessResponse(rsp)
 }
 
 // GasComponentsWithResponse The gas component catalogue
@@ -10162,17 +10334,35 @@ func (c *ClientWithResponses) SizeStageCompactWithResponse(ctx context.Context, 
 	return ParseSizeStageCompactResponse(rsp)
 }
 
-// GetVersionWithResponse Build and model version
+// VersionWithResponse Build and model version
+//
+// The build (version, commit, Go toolchain) and the physics model version that answer. Not under authentication.
 //
 // Returns a wrapper object for the known response body format(s).
 //
-// Corresponds with GET /version (the `GetVersion` operationId).
-func (c *ClientWithResponses) GetVersionWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*GetVersionResponse, error) {
-	rsp, err := c.GetVersion(ctx, reqEditors...)
+// Corresponds with GET /version (the `Version` operationId).
+func (c *ClientWithResponses) VersionWithResponse(ctx context.Context, reqEditors ...RequestEditorFn) (*VersionResponse, error) {
+	rsp, err := c.Version(ctx, reqEditors...)
 	if err != nil {
 		return nil, err
 	}
-	return ParseGetVersionResponse(rsp)
+	return ParseVersionResponse(rsp)
+}
+
+// ParseDocsResponse parses an HTTP response from a DocsWithResponse call
+func ParseDocsResponse(rsp *http.Response) (*DocsResponse, error) {
+	bodyBytes, err := io.ReadAll(rsp.Body)
+	defer func() { _ = rsp.Body.Close() }()
+	if err != nil {
+		return nil, err
+	}
+
+	response := &DocsResponse{
+		Body:         bodyBytes,
+		HTTPResponse: rsp,
+	}
+
+	return response, nil
 }
 
 // ParseHealthResponse parses an HTTP response from a HealthWithResponse call
@@ -10201,15 +10391,15 @@ func ParseHealthResponse(rsp *http.Response) (*HealthResponse, error) {
 	return response, nil
 }
 
-// ParseGetMetricsResponse parses an HTTP response from a GetMetricsWithResponse call
-func ParseGetMetricsResponse(rsp *http.Response) (*GetMetricsResponse, error) {
+// ParseMetricsResponse parses an HTTP response from a MetricsWithResponse call
+func ParseMetricsResponse(rsp *http.Response) (*MetricsResponse, error) {
 	bodyBytes, err := io.ReadAll(rsp.Body)
 	defer func() { _ = rsp.Body.Close() }()
 	if err != nil {
 		return nil, err
 	}
 
-	response := &GetMetricsResponse{
+	response := &MetricsResponse{
 		Body:         bodyBytes,
 		HTTPResponse: rsp,
 	}
@@ -10217,15 +10407,15 @@ func ParseGetMetricsResponse(rsp *http.Response) (*GetMetricsResponse, error) {
 	return response, nil
 }
 
-// ParseGetReadyzResponse parses an HTTP response from a GetReadyzWithResponse call
-func ParseGetReadyzResponse(rsp *http.Response) (*GetReadyzResponse, error) {
+// ParseReadinessResponse parses an HTTP response from a ReadinessWithResponse call
+func ParseReadinessResponse(rsp *http.Response) (*ReadinessResponse, error) {
 	bodyBytes, err := io.ReadAll(rsp.Body)
 	defer func() { _ = rsp.Body.Close() }()
 	if err != nil {
 		return nil, err
 	}
 
-	response := &GetReadyzResponse{
+	response := &ReadinessResponse{
 		Body:         bodyBytes,
 		HTTPResponse: rsp,
 	}
@@ -10325,12 +10515,26 @@ func ParseGasPropertiesResponse(rsp *http.Response) (*GasPropertiesResponse, err
 		}
 		response.ApplicationproblemJSON401 = &dest
 
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 408:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON408 = &dest
+
 	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 413:
 		var dest ApiProblem
 		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
 			return nil, err
 		}
 		response.ApplicationproblemJSON413 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 415:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON415 = &dest
 
 	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 422:
 		var dest ApiProblem
@@ -10860,12 +11064,26 @@ func ParseSizeStageResponse(rsp *http.Response) (*SizeStageResponse, error) {
 		}
 		response.ApplicationproblemJSON401 = &dest
 
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 408:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON408 = &dest
+
 	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 413:
 		var dest ApiProblem
 		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
 			return nil, err
 		}
 		response.ApplicationproblemJSON413 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 415:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON415 = &dest
 
 	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 422:
 		var dest ApiProblem
@@ -10935,12 +11153,26 @@ func ParseSizeStageBatchResponse(rsp *http.Response) (*SizeStageBatchResponse, e
 		}
 		response.ApplicationproblemJSON401 = &dest
 
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 408:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON408 = &dest
+
 	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 413:
 		var dest ApiProblem
 		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
 			return nil, err
 		}
 		response.ApplicationproblemJSON413 = &dest
+
+	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 415:
+		var dest ApiProblem
+		if err := json.Unmarshal(bodyBytes, &dest); err != nil {
+			return nil, err
+		}
+		response.ApplicationproblemJSON415 = &dest
 
 	case strings.Contains(rsp.Header.Get("Content-Type"), "json") && rsp.StatusCode == 500:
 		var dest ApiProblem
@@ -11111,15 +11343,15 @@ func ParseSizeStageCompactResponse(rsp *http.Response) (*SizeStageCompactRespons
 	return response, nil
 }
 
-// ParseGetVersionResponse parses an HTTP response from a GetVersionWithResponse call
-func ParseGetVersionResponse(rsp *http.Response) (*GetVersionResponse, error) {
+// ParseVersionResponse parses an HTTP response from a VersionWithResponse call
+func ParseVersionResponse(rsp *http.Response) (*VersionResponse, error) {
 	bodyBytes, err := io.ReadAll(rsp.Body)
 	defer func() { _ = rsp.Body.Close() }()
 	if err != nil {
 		return nil, err
 	}
 
-	response := &GetVersionResponse{
+	response := &VersionResponse{
 		Body:         bodyBytes,
 		HTTPResponse: rsp,
 	}

@@ -29,17 +29,28 @@ type Constant struct {
 	r     float64
 }
 
+// GammaMax is the largest ratio of specific heats accepted: 5/3 (the
+// monatomic limit) as it is written to four decimals, so that 1.6667 for
+// helium or argon is not refused for a rounding.
+const GammaMax = 1.6667
+
 // NewConstant returns the constant-property ideal gas with isobaric heat
 // capacity cp (J/(kg K)) and ratio of specific heats gamma. It wants
-// 0 < cp < 1e6 and 1 < gamma ≤ 5/3 (the monatomic limit).
+// 0 < cp < 1e6 and 1 < gamma ≤ GammaMax (5/3, the monatomic limit).
 func NewConstant(cp physics.JoulePerKgK, gamma float64) (Constant, error) {
 	switch {
-	case !(cp > 0) || !(cp < 1e6):
+	case !(cp > 0):
 		return Constant{}, &physics.DomainError{Name: "cp", Value: float64(cp), Want: "finite, > 0 J/(kg K)",
 			Reason: "the gas cp must be a positive heat capacity in J/(kg K)"}
-	case !(gamma > 1) || !(gamma <= 5.0/3.0+1e-9):
-		return Constant{}, &physics.DomainError{Name: "gamma", Value: gamma, Want: "1 < gamma <= 5/3",
-			Reason: "the ratio of specific heats gamma must lie above 1 and at most 5/3 (monatomic gas)"}
+	case !(cp >= 100):
+		return Constant{}, &physics.DomainError{Name: "cp", Value: float64(cp), Want: ">= 100 J/(kg K)",
+			Reason: "the gas cp is out of range: too small (at least 100 J/(kg K); heavy gases such as SF6 have about 600)"}
+	case !(cp < 1e6):
+		return Constant{}, &physics.DomainError{Name: "cp", Value: float64(cp), Want: "< 1e6 J/(kg K)",
+			Reason: "the gas cp is out of range: too large (below 1e6 J/(kg K); hydrogen's is about 14 300)"}
+	case !(gamma > 1) || !(gamma <= GammaMax):
+		return Constant{}, &physics.DomainError{Name: "gamma", Value: gamma, Want: "1 < gamma <= 1.6667",
+			Reason: "the ratio of specific heats gamma is out of range: it must lie above 1 and at most 5/3 (monatomic gas; 1.6667 accepted)"}
 	}
 	return Constant{cp: float64(cp), gamma: gamma, r: float64(cp) * (gamma - 1) / gamma}, nil
 }
