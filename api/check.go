@@ -573,10 +573,7 @@ func checkResponseOf(res service.CheckResult) (MachineCheckResponse, error) {
 		out.Similarity = append(out.Similarity, SimilarityOut{Quantity: s.Quantity, Baseline: s.Baseline, Duty: s.Duty, Measure: s.Measure,
 			Kind: s.Kind, Low: s.Low, High: s.High, Within: s.Within, Basis: s.Basis})
 	}
-	for _, w := range res.Warnings {
-		out.Warnings = append(out.Warnings, WarningOut{Code: w.Code, Severity: w.Severity, Message: w.Message,
-			Value: w.Value, Limit: w.Limit, Margin: w.Margin, Unit: w.Unit, Basis: w.Basis})
-	}
+	out.Warnings = appendWarnings(out.Warnings, res.Warnings)
 	if err := allFinite(out); err != nil {
 		return MachineCheckResponse{}, err
 	}

@@ -7,6 +7,7 @@ import (
 
 	"stagewright/api/units"
 	"stagewright/physics"
+	"stagewright/physics/limits"
 	"stagewright/physics/stage"
 	"stagewright/service"
 )
@@ -272,19 +273,8 @@ func responseOf(res service.StageResult) (StageResponse, error) {
 		t := res.SpeedTarget
 		out.SpeedChoice.Target = &t
 	}
-	for _, a := range res.Assessments {
-		l := LimitOut{Rule: a.Rule.ID, Code: a.Rule.Code, Quantity: a.Rule.Quantity, Severity: string(a.Severity), Value: a.Value,
-			Warning: a.Rule.Warning, Margin: a.Margin, Unit: a.Rule.Unit, Basis: a.Rule.Basis}
-		if !math.IsNaN(a.Rule.Limit) {
-			lim := a.Rule.Limit
-			l.Limit = &lim
-		}
-		out.Limits = append(out.Limits, l)
-	}
-	for _, w := range res.Warnings {
-		out.Warnings = append(out.Warnings, WarningOut{Code: w.Code, Severity: w.Severity, Message: w.Message,
-			Value: w.Value, Limit: w.Limit, Margin: w.Margin, Unit: w.Unit, Basis: w.Basis})
-	}
+	out.Limits = appendLimits(out.Limits, res.Assessments)
+	out.Warnings = appendWarnings(out.Warnings, res.Warnings)
 	out.Provenance = provenanceOut(res.Provenance)
 	out.Machine = machineSpecOf(res.Machine)
 	if err := stageFinite.check(&out); err != nil {
@@ -296,4 +286,28 @@ func responseOf(res service.StageResult) (StageResponse, error) {
 func stateOut(p physics.Pascal, t physics.Kelvin, rho physics.KgPerCubicMeter, z float64, a, c physics.MeterPerS) StateOut {
 	return StateOut{Pressure: float64(p), Temperature: float64(t), Density: float64(rho), Compressibility: z,
 		SpeedOfSound: float64(a), Velocity: float64(c)}
+}
+
+// appendLimits appends the limit table of a result to out: every rule
+// applied with its levels, value, margin and basis (no limit level: none).
+func appendLimits(out []LimitOut, as []limits.Assessment) []LimitOut {
+	for _, a := range as {
+		l := LimitOut{Rule: a.Rule.ID, Code: a.Rule.Code, Quantity: a.Rule.Quantity, Severity: string(a.Severity), Value: a.Value,
+			Warning: a.Rule.Warning, Margin: a.Margin, Unit: a.Rule.Unit, Basis: a.Rule.Basis}
+		if !math.IsNaN(a.Rule.Limit) {
+			lim := a.Rule.Limit
+			l.Limit = &lim
+		}
+		out = append(out, l)
+	}
+	return out
+}
+
+// appendWarnings appends a result's warnings to out.
+func appendWarnings(out []WarningOut, ws []service.Warning) []WarningOut {
+	for _, w := range ws {
+		out = append(out, WarningOut{Code: w.Code, Severity: w.Severity, Message: w.Message,
+			Value: w.Value, Limit: w.Limit, Margin: w.Margin, Unit: w.Unit, Basis: w.Basis})
+	}
+	return out
 }

@@ -154,10 +154,7 @@ func mapResponseOf(m service.Map) (MapResponse, error) {
 		o := MapMarkerOut(*m.OperatingPoint)
 		out.OperatingPoint = &o
 	}
-	for _, w := range m.Warnings {
-		out.Warnings = append(out.Warnings, WarningOut{Code: w.Code, Severity: w.Severity, Message: w.Message,
-			Value: w.Value, Limit: w.Limit, Margin: w.Margin, Unit: w.Unit, Basis: w.Basis})
-	}
+	out.Warnings = appendWarnings(out.Warnings, m.Warnings)
 	if err := allFinite(out); err != nil {
 		return MapResponse{}, err
 	}

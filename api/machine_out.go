@@ -1,8 +1,6 @@
 package api
 
 import (
-	"math"
-
 	"stagewright/service"
 )
 
@@ -249,19 +247,8 @@ func rateResponseOf(r service.Rating) (RateResponse, error) {
 		}
 		out.Stages = append(out.Stages, so)
 	}
-	for _, a := range r.Assessments {
-		l := LimitOut{Rule: a.Rule.ID, Code: a.Rule.Code, Quantity: a.Rule.Quantity, Severity: string(a.Severity), Value: a.Value,
-			Warning: a.Rule.Warning, Margin: a.Margin, Unit: a.Rule.Unit, Basis: a.Rule.Basis}
-		if !math.IsNaN(a.Rule.Limit) {
-			lim := a.Rule.Limit
-			l.Limit = &lim
-		}
-		out.Limits = append(out.Limits, l)
-	}
-	for _, w := range r.Warnings {
-		out.Warnings = append(out.Warnings, WarningOut{Code: w.Code, Severity: w.Severity, Message: w.Message,
-			Value: w.Value, Limit: w.Limit, Margin: w.Margin, Unit: w.Unit, Basis: w.Basis})
-	}
+	out.Limits = appendLimits(out.Limits, r.Assessments)
+	out.Warnings = appendWarnings(out.Warnings, r.Warnings)
 	if err := allFinite(out); err != nil {
 		return RateResponse{}, err
 	}
