@@ -5,10 +5,8 @@ import (
 	"fmt"
 	"log/slog"
 	"net/http"
-	"runtime"
 	"runtime/debug"
 	"strconv"
-	"sync"
 
 	"github.com/gin-gonic/gin"
 
@@ -403,38 +401,12 @@ func (h checkHandler) checkBatch(c *gin.Context) {
 	ctx := c.Request.Context()
 	out := MachineCheckBatchResponse{Results: make([]MachineCheckBatchItem, len(req.Checks))}
 	memo := service.NewCheckMemo() // checks of one machine and baseline share it
-	work := make(chan int)
-	var wg sync.WaitGroup
-	for range min(runtime.GOMAXPROCS(0), len(req.Checks)) {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for i := range work {
-				out.Results[i] = h.one(c, i, req.Checks[i], memo)
-			}
-		}()
-	}
-feed:
-	for i := range req.Checks {
-		select {
-		case work <- i:
-		case <-ctx.Done(): // deadline or client gone: run no further check
-			break feed
-		}
-	}
-	close(work)
-	wg.Wait()
-	if err := ctx.Err(); err != nil {
+	err := runParallel(ctx, len(req.Checks), func(i int) { out.Results[i] = h.one(c, i, req.Checks[i], memo) })
+	if err != nil { // deadline or client gone: no further check ran
 		fail(c, h.log, err) // 504 on the compute deadline; partial results are not sent
 		return
 	}
-	for _, r := range out.Results {
-		if r.Status == http.StatusOK {
-			out.Succeeded++
-		} else {
-			out.Failed++
-		}
-	}
+	out.Succeeded, out.Failed = tally(out.Results, func(r MachineCheckBatchItem) int { return r.Status })
 	c.JSON(http.StatusOK, out)
 }
 

@@ -6,9 +6,7 @@ import (
 	"fmt"
 	"log/slog"
 	"net/http"
-	"runtime"
 	"runtime/debug"
-	"sync"
 
 	"github.com/gin-gonic/gin"
 
@@ -163,38 +161,11 @@ func (h machineHandler) rateBatch(c *gin.Context) {
 	}
 	ctx := c.Request.Context()
 	out := RateBatchResponse{Results: make([]RateBatchItem, len(req.Ratings))}
-	work := make(chan int)
-	var wg sync.WaitGroup
-	for range min(runtime.GOMAXPROCS(0), len(req.Ratings)) {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for i := range work {
-				out.Results[i] = h.one(c, i, req.Ratings[i])
-			}
-		}()
-	}
-feed:
-	for i := range req.Ratings {
-		select {
-		case work <- i:
-		case <-ctx.Done():
-			break feed
-		}
-	}
-	close(work)
-	wg.Wait()
-	if err := ctx.Err(); err != nil {
+	if err := runParallel(ctx, len(req.Ratings), func(i int) { out.Results[i] = h.one(c, i, req.Ratings[i]) }); err != nil {
 		fail(c, h.log, err)
 		return
 	}
-	for _, r := range out.Results {
-		if r.Status == http.StatusOK {
-			out.Succeeded++
-		} else {
-			out.Failed++
-		}
-	}
+	out.Succeeded, out.Failed = tally(out.Results, func(r RateBatchItem) int { return r.Status })
 	c.JSON(http.StatusOK, out)
 }
 

@@ -6,6 +6,7 @@ import (
 	"fmt"
 	"math"
 	"strconv"
+	"strings"
 	"sync"
 )
 
@@ -273,15 +274,10 @@ func checkDutyShape(d CheckDuty, prefix string) error {
 // field under prefix ("duty." or "baseline."), a machine field as it is.
 func prefixed(err error, prefix string) error {
 	var ie *InputError
-	if !errors.As(err, &ie) || prefix == "" {
+	if prefix == "" || (errors.As(err, &ie) && strings.HasPrefix(ie.Field, "machine")) {
 		return err
 	}
-	if len(ie.Field) >= 7 && ie.Field[:7] == "machine" {
-		return err
-	}
-	out := *ie
-	out.Field = prefix + ie.Field
-	return &out
+	return prefixField(err, prefix)
 }
 
 // check runs a duty-change check with the rating rate.
