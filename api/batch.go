@@ -1,10 +1,8 @@
 package api
 
 import (
-	"fmt"
 	"net/http"
 	"runtime"
-	"runtime/debug"
 	"strconv"
 	"strings"
 	"sync"
@@ -219,25 +217,7 @@ func (h stageHandler) encodedItem(c *gin.Context, i int, r StageRequest, compact
 
 // one sizes duty i of a batch. It runs on a worker goroutine, out of reach
 // of the recovery middleware, so it recovers a panic itself into a 500 item.
-func (h stageHandler) one(c *gin.Context, i int, r StageRequest) (item BatchItem) {
-	item = BatchItem{Index: i}
-	defer func() {
-		if rec := recover(); rec != nil {
-			h.log.Error("panic", "request_id", c.GetString(requestIDKey), "route", routeLabel(c), "index", i,
-				"panic", fmt.Sprint(rec), "stack", string(debug.Stack()))
-			p := Problem{Type: "about:blank", Title: "Internal Server Error", Status: http.StatusInternalServerError}
-			item = BatchItem{Index: i, Status: p.Status, Problem: &p}
-		}
-	}()
-	res, err := h.sizeOne(c, r)
-	if err != nil {
-		p := problemFor(err)
-		if p.Status == http.StatusInternalServerError {
-			h.log.Error("batch item failed", "request_id", c.GetString(requestIDKey), "index", i, "err", err)
-		}
-		item.Status, item.Problem = p.Status, &p
-		return item
-	}
-	item.Status, item.Result = http.StatusOK, &res
-	return item
+func (h stageHandler) one(c *gin.Context, i int, r StageRequest) BatchItem {
+	res, status, p := batchItem(c, h.log, i, func() (StageResponse, error) { return h.sizeOne(c, r) })
+	return BatchItem{Index: i, Status: status, Result: res, Problem: p}
 }

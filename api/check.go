@@ -5,7 +5,6 @@ import (
 	"fmt"
 	"log/slog"
 	"net/http"
-	"runtime/debug"
 	"strconv"
 
 	"github.com/gin-gonic/gin"
@@ -412,32 +411,16 @@ func (h checkHandler) checkBatch(c *gin.Context) {
 
 // one runs check i of a batch on a worker goroutine; it recovers a panic
 // itself into a 500 item.
-func (h checkHandler) one(c *gin.Context, i int, r MachineCheckRequest, memo *service.CheckMemo) (item MachineCheckBatchItem) {
-	item = MachineCheckBatchItem{Index: i}
-	defer func() {
-		if rec := recover(); rec != nil {
-			h.log.Error("panic", "request_id", c.GetString(requestIDKey), "route", routeLabel(c), "index", i,
-				"panic", fmt.Sprint(rec), "stack", string(debug.Stack()))
-			p := Problem{Type: "about:blank", Title: "Internal Server Error", Status: http.StatusInternalServerError}
-			item = MachineCheckBatchItem{Index: i, Status: p.Status, Problem: &p}
-		}
-	}()
-	res, err := h.checkOne(c.Request.Context(), r, memo)
-	if err != nil {
-		p := problemFor(err)
-		if p.Status == http.StatusInternalServerError {
-			h.log.Error("batch item failed", "request_id", c.GetString(requestIDKey), "index", i, "err", err)
-		}
+func (h checkHandler) one(c *gin.Context, i int, r MachineCheckRequest, memo *service.CheckMemo) MachineCheckBatchItem {
+	res, status, p := batchItem(c, h.log, i, func() (MachineCheckResponse, error) { return h.checkOne(c.Request.Context(), r, memo) })
+	if p != nil {
 		// Pointers name the field in the batch request: /checks/N/...
 		prefix := "/checks/" + strconv.Itoa(i)
 		for k := range p.Errors {
 			p.Errors[k].Pointer = prefix + p.Errors[k].Pointer
 		}
-		item.Status, item.Problem = p.Status, &p
-		return item
 	}
-	item.Status, item.Result = http.StatusOK, &res
-	return item
+	return MachineCheckBatchItem{Index: i, Status: status, Result: res, Problem: p}
 }
 
 // checkOne converts, checks and renders one request.

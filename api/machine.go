@@ -6,7 +6,6 @@ import (
 	"fmt"
 	"log/slog"
 	"net/http"
-	"runtime/debug"
 
 	"github.com/gin-gonic/gin"
 
@@ -171,27 +170,9 @@ func (h machineHandler) rateBatch(c *gin.Context) {
 
 // one rates item i of a batch, recovering a panic into a 500 item (the
 // worker goroutine is out of reach of the recovery middleware).
-func (h machineHandler) one(c *gin.Context, i int, r RateRequest) (item RateBatchItem) {
-	item = RateBatchItem{Index: i}
-	defer func() {
-		if rec := recover(); rec != nil {
-			h.log.Error("panic", "request_id", c.GetString(requestIDKey), "route", routeLabel(c), "index", i,
-				"panic", fmt.Sprint(rec), "stack", string(debug.Stack()))
-			p := Problem{Type: "about:blank", Title: "Internal Server Error", Status: http.StatusInternalServerError}
-			item = RateBatchItem{Index: i, Status: p.Status, Problem: &p}
-		}
-	}()
-	res, err := h.rateOne(c.Request.Context(), r)
-	if err != nil {
-		p := problemFor(err)
-		if p.Status == http.StatusInternalServerError {
-			h.log.Error("batch item failed", "request_id", c.GetString(requestIDKey), "index", i, "err", err)
-		}
-		item.Status, item.Problem = p.Status, &p
-		return item
-	}
-	item.Status, item.Result = http.StatusOK, &res
-	return item
+func (h machineHandler) one(c *gin.Context, i int, r RateRequest) RateBatchItem {
+	res, status, p := batchItem(c, h.log, i, func() (RateResponse, error) { return h.rateOne(c.Request.Context(), r) })
+	return RateBatchItem{Index: i, Status: status, Result: res, Problem: p}
 }
 
 // Map content types.
