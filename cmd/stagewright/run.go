@@ -67,11 +67,10 @@ func run(ctx context.Context, args []string, getenv func(string) string, stdout,
 		srv.TLSConfig = &tls.Config{Certificates: []tls.Certificate{pair}, MinVersion: tls.VersionTLS12}
 		scheme = "https"
 	}
-	tcp, err := net.Listen("tcp", cfg.Addr)
+	ln, err := listen(cfg.Addr)
 	if err != nil {
 		return fmt.Errorf("listen on %s: %w", cfg.Addr, err)
 	}
-	ln := &drainingListener{TCPListener: tcp.(*net.TCPListener)}
 	base := scheme + "://" + ln.Addr().String()
 	errc := make(chan error, 1)
 	go func() { // from here on srv belongs to Serve: its fields are not read
@@ -116,12 +115,13 @@ func run(ctx context.Context, args []string, getenv func(string) string, stdout,
 	defer cancel()
 	// Close the listener first and let every accepted connection finish
 	// its request (each answer says Connection: close) before Shutdown;
-	// the listener first accepts what clients have already queued
-	// (drainingListener), which closing it would reset:
-	// net/http drops, unanswered, a request it reads once Shutdown has
-	// begun, and with keep-alives ending every connection carries one
+	// the listener stops new handshakes and first accepts what clients
+	// have already queued (drainingListener), which closing it would
+	// reset: net/http drops, unanswered, a request it reads once Shutdown
+	// has begun, and with keep-alives ending every connection carries one
 	// request that may arrive just then. Idle connections are closed.
 	_ = ln.Close()
+	log.Info("listener closing", "new_connections_refused", ln.filtered.Load(), "accept_drain", acceptDrain.String())
 	select { // Serve returns once the listener has taken the last queued connection
 	case <-errc:
 	case <-sctx.Done():
@@ -180,31 +180,68 @@ func (t *connTracker) drain(ctx context.Context) {
 	}
 }
 
-// acceptDrain is how long a closing listener keeps accepting the
-// connections clients have already opened.
-const acceptDrain = 50 * time.Millisecond
+// acceptDrain is how long a closing listener waits for connections the
+// kernel may still be completing; the drain goes on while its accept queue
+// holds any, up to acceptDrainMax (a bound for systems where new ones
+// cannot be refused and the queue may never empty).
+const (
+	acceptDrain    = 50 * time.Millisecond
+	acceptDrainMax = 2 * time.Second
+)
 
-// drainingListener closes gracefully: Close makes it accept, for
-// acceptDrain more, the connections the kernel has already completed
-// (closing a listening socket resets every connection still queued, and a
-// request written on one is lost), then close.
+// listen opens the service's TCP listener. Plain TCP, not the multipath
+// TCP Go asks for by default: the graceful close filters the listening
+// socket (refuseNewConnections), which an MPTCP socket refuses
+// (EOPNOTSUPP).
+func listen(addr string) (*drainingListener, error) {
+	lc := net.ListenConfig{}
+	lc.SetMultipathTCP(false)
+	ln, err := lc.Listen(context.Background(), "tcp", addr)
+	if err != nil {
+		return nil, err
+	}
+	return &drainingListener{TCPListener: ln.(*net.TCPListener)}, nil
+}
+
+// drainingListener closes gracefully. Closing a listening socket resets
+// every connection still in its accept queue, and a request a client has
+// already written on one is lost. So Close first stops the kernel from
+// starting new handshakes (refuseNewConnections, on Linux), then the
+// listener goes on accepting what the kernel has queued until the queue is
+// empty (acceptQueueLen) and acceptDrain has passed, then it closes.
+// Without the filter (other systems) clients keep connecting during the
+// drain and one queued in its last instant may still be reset.
 type drainingListener struct {
 	*net.TCPListener
-	closing atomic.Bool
+	closing  atomic.Bool
+	filtered atomic.Bool // new handshakes refused since Close
+	until    time.Time   // the drain's bound; Accept's goroutine only
 }
 
 func (l *drainingListener) Accept() (net.Conn, error) {
-	c, err := l.TCPListener.Accept()
-	if err != nil && l.closing.Load() {
+	for {
+		c, err := l.TCPListener.Accept()
+		if err == nil || !l.closing.Load() {
+			return c, err
+		}
+		// Closing and the drain deadline has passed: go on while the
+		// kernel still holds completed connections.
+		if l.until.IsZero() {
+			l.until = time.Now().Add(acceptDrainMax)
+		}
+		if n, qerr := acceptQueueLen(l.TCPListener); qerr == nil && n > 0 && time.Now().Before(l.until) {
+			_ = l.TCPListener.SetDeadline(time.Now().Add(acceptDrain))
+			continue
+		}
 		_ = l.TCPListener.Close()
 		return nil, net.ErrClosed
 	}
-	return c, err
 }
 
 func (l *drainingListener) Close() error {
 	if l.closing.Swap(true) {
 		return nil
 	}
+	l.filtered.Store(refuseNewConnections(l.TCPListener) == nil)
 	return l.TCPListener.SetDeadline(time.Now().Add(acceptDrain))
 }

@@ -6,10 +6,13 @@
 #   testdata/load/sigterm.sh            # 3 s delay, SIGTERM 2 s into an 8 s run
 #
 # Once shutdown begins every answer says Connection: close, so wrk
-# reconnects; after the delay the listener closes and wrk's new
-# connections are refused ("connect" errors: a load balancer sends them to
-# another replica). "read" errors (a request written and never answered)
-# must be 0; the script fails otherwise. Loopback only, bounded in time.
+# reconnects; after the delay the listener stops new handshakes, takes
+# what the kernel has queued and closes, and wrk's new connections are
+# refused before it writes a request (wrk counts these as "write" errors,
+# as it does not check a non-blocking connect: a load balancer sends them
+# to another replica). "read" errors (a request written and never
+# answered) must be 0; the script fails otherwise. Loopback only, bounded
+# in time.
 set -euo pipefail
 cd "$(dirname "${BASH_SOURCE[0]}")/../.."
 command -v wrk >/dev/null || { apt-get install -y wrk >/dev/null || { apt-get update >/dev/null && apt-get install -y wrk >/dev/null; }; }
@@ -34,6 +37,7 @@ done
 wrk -t 2 -c 32 -d 8s --timeout 5s -s testdata/load/size.lua "http://$addr" -- testdata/stages/kestrel-instrument-air.in.json >"$WORK/wrk.txt" 2>&1 || true
 wait "$SERVER_PID" && status=0 || status=$?
 SERVER_PID=""
+grep -o '"msg":"listener closing"[^}]*' "$WORK/server.log" || true
 sed -n '/Requests\/sec\|requests in\|Socket errors\|Non-2xx/p' "$WORK/wrk.txt"
 echo "server exit status: $status"
 read_errors=$(grep -o 'read [0-9]*' "$WORK/wrk.txt" | grep -o '[0-9]*' || echo 0)
