@@ -63,14 +63,37 @@ type Result struct {
 // (1985) (stepwise reference, from memory). Valid for p2 > p1,
 // 0 < eff.Value ≤ 1, and single-phase states of the model along the path.
 func Compression(m gas.Model, suction gas.State, p2 physics.Pascal, eff Efficiency, method Method) (Result, error) {
+	return compression(m, suction, p2, eff, method, nil)
+}
+
+// pathEnd is what dischargeAt found at a discharge pressure, for
+// compression to take instead of solving it again (the last Newton step
+// of CompressionForWork is at the pressure it returns).
+type pathEnd struct {
+	p2   physics.Pascal
+	step StepwiseResult // method Stepwise
+	iso  gas.State      // method Schultz, with dis and sch
+	dis  gas.State
+	sch  SchultzResult
+}
+
+// compression is Compression with, for a polytropic efficiency, the end
+// of the path at p2 already found (end.p2 == p2; nil: none).
+func compression(m gas.Model, suction gas.State, p2 physics.Pascal, eff Efficiency, method Method, end *pathEnd) (Result, error) {
 	if err := checkInputs(m, suction, p2); err != nil {
 		return Result{}, err
 	}
 	if err := checkChoice(eff, method); err != nil {
 		return Result{}, err
 	}
-	iso, err := isentropicDischarge(m, suction, p2)
-	if err != nil {
+	if end != nil && (end.p2 != p2 || eff.Basis != Polytropic) {
+		end = nil
+	}
+	var iso gas.State
+	var err error
+	if end != nil && method != Stepwise {
+		iso = end.iso
+	} else if iso, err = isentropicDischarge(m, suction, p2); err != nil {
 		return Result{}, err
 	}
 	h1 := suction.Enthalpy
@@ -92,7 +115,9 @@ func Compression(m gas.Model, suction gas.State, p2 physics.Pascal, eff Efficien
 			return Result{}, err
 		}
 	case method == Stepwise:
-		if step, err = StepwisePath(m, suction, p2, eff.Value); err != nil {
+		if end != nil {
+			step = end.step
+		} else if step, err = StepwisePath(m, suction, p2, eff.Value); err != nil {
 			return Result{}, err
 		}
 		dis = step.Discharge
@@ -100,7 +125,9 @@ func Compression(m gas.Model, suction gas.State, p2 physics.Pascal, eff Efficien
 			return Result{}, err
 		}
 	default: // polytropic, Schultz
-		if dis, sch, err = schultzDischarge(m, suction, iso, p2, eff.Value); err != nil {
+		if end != nil {
+			dis, sch = end.dis, end.sch
+		} else if dis, sch, err = schultzDischarge(m, suction, iso, p2, eff.Value); err != nil {
 			return Result{}, err
 		}
 		if step, err = stepwiseToEnthalpy(m, suction, dis, eff.Value); err != nil {
@@ -178,10 +205,14 @@ func CompressionForWorkNear(m gas.Model, suction gas.State, w physics.JoulePerKg
 		}
 		p2 = float64(st.Pressure)
 	} else {
-		var err error
-		if p2, err = polytropicPressure(m, suction, float64(w), eff.Value, method, float64(near)); err != nil {
+		end, err := polytropicPressure(m, suction, float64(w), eff.Value, method, float64(near))
+		if err != nil {
 			return Result{}, err
 		}
+		if !(end.p2 > suction.Pressure) {
+			return Result{}, pressureNotAbove(end.p2)
+		}
+		return compression(m, suction, end.p2, eff, method, &end)
 	}
 	if !(p2 > p1) {
 		return Result{}, pressureNotAbove(physics.Pascal(p2))
@@ -190,8 +221,9 @@ func CompressionForWorkNear(m gas.Model, suction gas.State, w physics.JoulePerKg
 }
 
 // polytropicPressure finds p2 with h2(p2) − h1 = w along the polytropic
-// path of the method, by Newton steps in u = ln(p2/p1).
-func polytropicPressure(m gas.Model, suction gas.State, w, etaP float64, method Method, near float64) (float64, error) {
+// path of the method, by Newton steps in u = ln(p2/p1), and returns the
+// path's end there.
+func polytropicPressure(m gas.Model, suction gas.State, w, etaP float64, method Method, near float64) (pathEnd, error) {
 	p1 := float64(suction.Pressure)
 	pv1 := p1 / float64(suction.Density)
 	// Isothermal perfect-gas estimate, an upper bound of the ratio: Hp = pv ln pr.
@@ -201,39 +233,42 @@ func polytropicPressure(m gas.Model, suction gas.State, w, etaP float64, method 
 	}
 	for range 40 {
 		p2 := physics.Pascal(p1 * math.Exp(u))
-		dis, err := dischargeAt(m, suction, p2, etaP, method)
+		end, err := dischargeAt(m, suction, p2, etaP, method)
 		if err != nil {
-			return 0, err
+			return pathEnd{}, err
 		}
+		dis := end.dis
 		res := w - float64(dis.Enthalpy-suction.Enthalpy)
 		if math.Abs(res) <= 1e-10*w {
-			return float64(p2), nil
+			return end, nil
 		}
 		slope := float64(dis.Pressure) / float64(dis.Density) / etaP
 		next := u + res/slope
 		next = math.Max(math.Min(next, 4*u), u/4)
 		if math.Abs(next-u) <= 1e-13*math.Max(u, 1) {
-			return float64(p2), nil
+			return end, nil
 		}
 		u = next
 	}
-	return 0, &physics.DomainError{Name: "work", Value: w, Want: "a reachable discharge pressure",
+	return pathEnd{}, &physics.DomainError{Name: "work", Value: w, Want: "a reachable discharge pressure",
 		Reason: "no discharge pressure of the gas model takes up this work at this efficiency (the search did not converge)"}
 }
 
-// dischargeAt returns the discharge state for a polytropic efficiency by
-// the method.
-func dischargeAt(m gas.Model, suction gas.State, p2 physics.Pascal, etaP float64, method Method) (gas.State, error) {
+// dischargeAt returns the end of the path of a polytropic efficiency by
+// the method at p2 (dis: the discharge state).
+func dischargeAt(m gas.Model, suction gas.State, p2 physics.Pascal, etaP float64, method Method) (pathEnd, error) {
+	end := pathEnd{p2: p2}
+	var err error
 	if method == Stepwise {
-		st, err := StepwisePath(m, suction, p2, etaP)
-		return st.Discharge, err
+		end.step, err = StepwisePath(m, suction, p2, etaP)
+		end.dis = end.step.Discharge
+		return end, err
 	}
-	iso, err := isentropicDischarge(m, suction, p2)
-	if err != nil {
-		return gas.State{}, err
+	if end.iso, err = isentropicDischarge(m, suction, p2); err != nil {
+		return pathEnd{}, err
 	}
-	dis, _, err := schultzDischarge(m, suction, iso, p2, etaP)
-	return dis, err
+	end.dis, end.sch, err = schultzDischarge(m, suction, end.iso, p2, etaP)
+	return end, err
 }
 
 func isentropicDischarge(m gas.Model, suction gas.State, p2 physics.Pascal) (gas.State, error) {
