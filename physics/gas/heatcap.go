@@ -112,7 +112,14 @@ type cpTerm struct {
 //
 // (elementary: x²/T = x − ta + ta²/T and x³/T = x² − ta x + ta² − ta³/T).
 func (p *cpPiece) primitive(t float64) (cp, h, s float64) {
-	cp, h, s = p.published(t)
+	l := tLogs{t: t}
+	return p.primitiveLogs(&l)
+}
+
+// primitiveLogs is primitive with the logarithms of T shared (tLogs).
+func (p *cpPiece) primitiveLogs(l *tLogs) (cp, h, s float64) {
+	t := l.t
+	cp, h, s = p.publishedLogs(l)
 	if t > p.ta {
 		x, ta := t-p.ta, p.ta
 		l := math.Log1p(x / ta)
@@ -126,20 +133,51 @@ func (p *cpPiece) primitive(t float64) (cp, h, s float64) {
 // published returns cp and the antiderivatives of cp and cp/T of the
 // piece's published correlation (no hand-over correction).
 func (p *cpPiece) published(t float64) (cp, h, s float64) {
-	c := &p.c
+	l := tLogs{t: t}
+	return p.publishedLogs(&l)
+}
+
+// publishedLogs is published with the logarithms of T shared (tLogs).
+func (p *cpPiece) publishedLogs(l *tLogs) (cp, h, s float64) {
+	c, t := &p.c, l.t
 	if p.form == FormShomate {
 		x := t / 1000
 		x2 := x * x
 		cp = c[0] + x*(c[1]+x*(c[2]+x*c[3])) + c[4]/x2
 		h = 1000 * (x*(c[0]+x*(c[1]/2+x*(c[2]/3+x*c[3]/4))) - c[4]/x)
-		s = c[0]*math.Log(x) + x*(c[1]+x*(c[2]/2+x*c[3]/3)) - c[4]/(2*x2)
+		s = c[0]*l.lnX() + x*(c[1]+x*(c[2]/2+x*c[3]/3)) - c[4]/(2*x2)
 		return cp, h, s
 	}
 	const r = physics.UniversalGasConstant
 	cp = r * (c[0] + t*(c[1]+t*(c[2]+t*(c[3]+t*c[4]))))
 	h = r * t * (c[0] + t*(c[1]/2+t*(c[2]/3+t*(c[3]/4+t*c[4]/5))))
-	s = r * (c[0]*math.Log(t) + t*(c[1]+t*(c[2]/2+t*(c[3]/3+t*c[4]/4))))
+	s = r * (c[0]*l.lnT() + t*(c[1]+t*(c[2]/2+t*(c[3]/3+t*c[4]/4))))
 	return cp, h, s
+}
+
+// tLogs holds ln T and ln(T/1000 K) of one temperature, each computed on
+// first use, so that the components of a mixture share them: the
+// logarithms were a fifth of the time of a real-gas map (one per
+// component per state). The values are the ones each piece computed for
+// itself before, bit for bit.
+type tLogs struct {
+	t            float64
+	lt, lx       float64
+	haveT, haveX bool
+}
+
+func (l *tLogs) lnT() float64 {
+	if !l.haveT {
+		l.lt, l.haveT = math.Log(l.t), true
+	}
+	return l.lt
+}
+
+func (l *tLogs) lnX() float64 {
+	if !l.haveX {
+		l.lx, l.haveX = math.Log(l.t/1000), true
+	}
+	return l.lx
 }
 
 // publishedSlope returns dcp/dT (J/(mol K²)) of the published correlation.
@@ -213,6 +251,13 @@ func preparePieces(ranges []CpRange) []cpPiece {
 // evalPieces returns the ideal-gas cp, h and s° (J/mol, J/(mol K), at the
 // reference pressure) at t; t outside all pieces uses the nearest one.
 func evalPieces(ps []cpPiece, t float64) (cp, h, s float64) {
+	l := tLogs{t: t}
+	return evalPiecesLogs(ps, &l)
+}
+
+// evalPiecesLogs is evalPieces with the logarithms of T shared (tLogs).
+func evalPiecesLogs(ps []cpPiece, l *tLogs) (cp, h, s float64) {
+	t := l.t
 	k := len(ps) - 1
 	for i := range ps {
 		if t <= ps[i].tTop {
@@ -221,7 +266,7 @@ func evalPieces(ps []cpPiece, t float64) (cp, h, s float64) {
 		}
 	}
 	p := &ps[k]
-	cp, h, s = p.primitive(t)
+	cp, h, s = p.primitiveLogs(l)
 	return cp, h + p.hOff, s + p.sOff
 }
 

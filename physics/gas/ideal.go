@@ -34,9 +34,10 @@ func newIdealPart(c Composition) (idealPart, error) {
 // s (J/(mol K)) at temperature t and the reference pressure, mixing term
 // included.
 func (ip *idealPart) molar(t float64) (cp, h, s float64) {
+	l := tLogs{t: t}
 	for i := range ip.terms {
 		tm := &ip.terms[i]
-		c, hh, ss := evalPieces(tm.pieces, t)
+		c, hh, ss := evalPiecesLogs(tm.pieces, &l)
 		cp += tm.weight * c
 		h += tm.weight * hh
 		s += tm.weight * ss
