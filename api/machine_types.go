@@ -28,7 +28,7 @@ type MachineSpec struct {
 	Driver *MachineDriverSpec `json:"driver,omitempty"`
 	// MechanicalEfficiency is gas power over shaft power of the whole
 	// machine (bearings, seals, gears); default 0.98.
-	MechanicalEfficiency *float64 `json:"mechanical_efficiency,omitempty" format:"double" minimum:"0" maximum:"1" example:"0.98"`
+	MechanicalEfficiency *float64 `json:"mechanical_efficiency,omitempty" format:"double" minimum:"0.8" maximum:"1" example:"0.98"`
 	// SurgeControl is the anti-surge control line (used by /v1/machine/check).
 	SurgeControl *SurgeControlSpec `json:"surge_control,omitempty"`
 	// LimitOverrides replaces the levels of limit rules, keyed by rule

@@ -249,11 +249,10 @@ func designDuty(m Machine) (CheckDuty, error) {
 // checkDutyShape checks what the rating does not: the discharge pressure
 // above the suction pressure, and one flow.
 func checkDutyShape(d CheckDuty, prefix string) error {
+	if err := suctionInRange(d.SuctionPressure, d.SuctionTemperature, prefix+"suction.pressure", prefix+"suction.temperature"); err != nil {
+		return err
+	}
 	switch {
-	case !(d.SuctionPressure > 0) || math.IsInf(d.SuctionPressure, 0):
-		return fieldErr(prefix+"suction.pressure", reason("pressure", "the suction pressure must be a finite absolute pressure above 0 Pa", d.SuctionPressure))
-	case !(d.SuctionTemperature > 0) || math.IsInf(d.SuctionTemperature, 0):
-		return fieldErr(prefix+"suction.temperature", reason("temperature", "the suction temperature must be a finite absolute temperature above 0 K", d.SuctionTemperature))
 	case !(d.DischargePressure > d.SuctionPressure) || math.IsInf(d.DischargePressure, 0):
 		return fieldErr(prefix+"discharge_pressure", reason("discharge_pressure", fmt.Sprintf(
 			"discharge pressure (%.6g Pa) must exceed suction pressure (%.6g Pa)", d.DischargePressure, d.SuctionPressure), d.DischargePressure))

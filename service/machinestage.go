@@ -136,8 +136,9 @@ func (s *Service) prepareMachine(m Machine, prov *Provenance) (*preparedMachine,
 	pm.mechEff = DefaultMechanicalEfficiency
 	if m.MechanicalEfficiency != nil {
 		pm.mechEff = *m.MechanicalEfficiency
-		if !(pm.mechEff > 0 && pm.mechEff <= 1) {
-			return nil, fieldErr("machine.mechanical_efficiency", reason("mechanical_efficiency", "the mechanical efficiency must lie in (0, 1]", pm.mechEff))
+		if !(pm.mechEff >= MinMechanicalEfficiency && pm.mechEff <= 1) {
+			return nil, fieldErr("machine.mechanical_efficiency", reason("mechanical_efficiency", fmt.Sprintf(
+				"the mechanical efficiency is out of range: %g to 1 (losses past a quarter of the gas power are taken for an input mistake)", MinMechanicalEfficiency), pm.mechEff))
 		}
 	} else {
 		prov.Defaults = append(prov.Defaults, Default{Field: "machine.mechanical_efficiency", Value: "0.98",
@@ -197,12 +198,17 @@ func (s *Service) prepareStage(m Machine, i int, prov *Provenance) (preparedStag
 		{"exit_width", ms.ExitWidth, "the exit width must be a positive number of metres"},
 		{"design.speed", d.Speed, "the design speed must be a positive number of rev/min"},
 		{"design.volume_flow", d.VolumeFlow, "the design volume flow must be a positive number of m3/s"},
-		{"design.suction_pressure", d.SuctionPressure, "the design suction pressure must be a positive number of Pa"},
-		{"design.suction_temperature", d.SuctionTemperature, "the design suction temperature must be a positive number of K"},
 	} {
 		if err := posFinite(c.name, c.v, c.what); err != nil {
 			return ps, err
 		}
+	}
+	if err := suctionInRange(d.SuctionPressure, d.SuctionTemperature, f+".design.suction.pressure", f+".design.suction.temperature"); err != nil {
+		return ps, err
+	}
+	if d.DischargePressure != 0 && (!(d.DischargePressure > d.SuctionPressure) || math.IsInf(d.DischargePressure, 0)) {
+		return ps, fieldErr(f+".design.discharge_pressure", reason("discharge_pressure", fmt.Sprintf(
+			"the design discharge pressure (%.6g Pa) must exceed the design suction pressure (%.6g Pa)", d.DischargePressure, d.SuctionPressure), d.DischargePressure))
 	}
 	if !(d.PolytropicEfficiency > 0 && d.PolytropicEfficiency <= 1) {
 		return ps, fieldErr(f+".design.polytropic_efficiency", reason("polytropic_efficiency", "the design polytropic efficiency must lie in (0, 1]", d.PolytropicEfficiency))
@@ -307,10 +313,10 @@ func (s *Service) prepareStage(m Machine, i int, prov *Provenance) (preparedStag
 	}
 	suction, err := fullState(model, physics.Kelvin(d.SuctionTemperature), physics.Pascal(d.SuctionPressure))
 	if err != nil {
-		return ps, fieldErr(f+".design.suction_temperature", err)
+		return ps, fieldErr(f+".design.suction.temperature", err)
 	}
 	if suction.Phase == gas.PhaseLiquid || suction.Phase == gas.PhaseTwoPhase {
-		return ps, fieldErr(f+".design.suction_temperature", reason("suction_temperature", "the design gas is not a dry gas at the design suction state", d.SuctionTemperature))
+		return ps, fieldErr(f+".design.suction.temperature", reason("suction_temperature", "the design gas is not a dry gas at the design suction state", d.SuctionTemperature))
 	}
 	ps.designGas = model
 	ps.designMass = d.VolumeFlow * float64(suction.Density)

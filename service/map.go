@@ -112,7 +112,8 @@ func (s *Service) MapMachine(ctx context.Context, d MapDuty) (Map, error) {
 	}
 	n1d := pm.stages[0].speed
 	speeds := d.Speeds
-	if len(speeds) == 0 {
+	defaulted := len(speeds) == 0
+	if defaulted {
 		for _, f := range DefaultMapSpeedFractions() {
 			speeds = append(speeds, f*n1d)
 		}
@@ -144,7 +145,7 @@ func (s *Service) MapMachine(ctx context.Context, d MapDuty) (Map, error) {
 		}
 		line, qs, qc, err := s.mapLine(ctx, pm, op, n, points)
 		if err != nil {
-			return Map{}, prefixSpeedErr(err, i)
+			return Map{}, prefixSpeedErr(err, i, defaulted)
 		}
 		out.SpeedLines = append(out.SpeedLines, line)
 		first, last := line.Points[0], line.Points[len(line.Points)-1]
@@ -188,11 +189,19 @@ func (s *Service) MapMachine(ctx context.Context, d MapDuty) (Map, error) {
 	return out, nil
 }
 
-func prefixSpeedErr(err error, i int) error {
+// prefixSpeedErr names speed line i as the field of a flow error; with
+// the default speeds (the caller sent none) it names "speeds" and says
+// which default line failed.
+func prefixSpeedErr(err error, i int, defaulted bool) error {
 	var ie *InputError
 	if errors.As(err, &ie) && ie.Field == "flow" {
 		out := *ie
 		out.Field = "speeds." + strconv.Itoa(i)
+		if defaulted {
+			out.Field = "speeds"
+			out.Err = fmt.Errorf("the default speed line at %.0f %% of the design speed: %w (give speeds for the lines to draw)",
+				100*DefaultMapSpeedFractions()[i], ie.Err)
+		}
 		return &out
 	}
 	return err

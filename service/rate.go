@@ -209,6 +209,9 @@ type operating struct {
 }
 
 func (s *Service) operatingGas(g GasInput, t, p float64, mass, actual, std *float64, ref string, prov *Provenance) (operating, error) {
+	if err := suctionInRange(p, t, "suction.pressure", "suction.temperature"); err != nil {
+		return operating{}, err
+	}
 	model, notes, err := s.gasModel(g, t, p)
 	if err != nil {
 		return operating{}, err
@@ -389,7 +392,9 @@ func fillRating(r *Rating, pm *preparedMachine, st stacked) {
 	margin := pm.driverRating / shaft
 	if e := math.Floor(math.Log10(margin)); physics.Finite(e) {
 		scale := math.Pow(10, 8-e)
-		margin = math.Round(margin*scale) / scale
+		if r := math.Round(margin*scale) / scale; physics.Finite(scale, r) {
+			margin = r // a rating of 1e-300 W would scale past float64
+		}
 	}
 	r.Power = Power{Gas: gp, Shaft: shaft, MechanicalEfficiency: pm.mechEff, DriverRating: pm.driverRating, DriverMargin: margin}
 	first := st.stages[0]

@@ -38,13 +38,8 @@ func (s *Service) SizeStage(ctx context.Context, d StageDuty) (StageResult, erro
 	prov.InputHash = hashOf(d)
 	d.Impeller = withImpellerDefaults(d.Impeller, prov)
 
-	if !(d.SuctionPressure >= MinSuctionPressure && d.SuctionPressure <= PropertiesMaxPressure) {
-		return StageResult{}, fieldErr("suction.pressure", reason("suction pressure", fmt.Sprintf(
-			"the suction pressure is out of range: %g Pa to %g MPa absolute", MinSuctionPressure, PropertiesMaxPressure/1e6), d.SuctionPressure))
-	}
-	if !(d.SuctionTemperature >= PropertiesMinTemperature) {
-		return StageResult{}, fieldErr("suction.temperature", reason("suction temperature", fmt.Sprintf(
-			"the suction temperature is out of range: at least %g K", PropertiesMinTemperature), d.SuctionTemperature))
+	if err := suctionInRange(d.SuctionPressure, d.SuctionTemperature, "suction.pressure", "suction.temperature"); err != nil {
+		return StageResult{}, err
 	}
 	model, gasNotes, err := s.gasModel(d.Gas, d.SuctionTemperature, d.SuctionPressure)
 	if err != nil {
@@ -650,4 +645,22 @@ func efficiencyRangeWarning(sz stage.Sizing, est stage.EfficiencyEstimate) Warni
 		w.Message = fmt.Sprintf("the efficiency correlation (form and coefficients from memory, unverified) is used outside its tip Mach number range (%.3g, range %.3g-%.3g): %s", mu, mlo, mhi, est.Note)
 	}
 	return w
+}
+
+// suctionInRange refuses a suction state outside what any gas model here
+// is meant for: pressure from MinSuctionPressure to PropertiesMaxPressure,
+// temperature from PropertiesMinTemperature (finite). Every suction the
+// service reads passes it: a duty's, an operating point's and a machine
+// stage's design suction (a design suction of 1e9 Pa once kept a rating
+// computing for minutes).
+func suctionInRange(p, t float64, pField, tField string) error {
+	if !(p >= MinSuctionPressure && p <= PropertiesMaxPressure) {
+		return fieldErr(pField, reason("suction pressure", fmt.Sprintf(
+			"the suction pressure is out of range: %g Pa to %g MPa absolute", MinSuctionPressure, PropertiesMaxPressure/1e6), p))
+	}
+	if !(t >= PropertiesMinTemperature) || math.IsInf(t, 0) {
+		return fieldErr(tField, reason("suction temperature", fmt.Sprintf(
+			"the suction temperature is out of range: at least %g K", PropertiesMinTemperature), t))
+	}
+	return nil
 }
