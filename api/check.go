@@ -441,12 +441,12 @@ func (h checkHandler) checkOne(ctx context.Context, req MachineCheckRequest, mem
 		}
 		sr.Baseline = &b
 	}
-	var res service.CheckResult
-	if memo != nil {
-		res, err = h.svc.CheckMachineShared(ctx, sr, memo)
-	} else {
-		res, err = h.svc.CheckMachine(ctx, sr)
-	}
+	res, err := bounded(ctx, h.log, "duty-change check", func(ctx context.Context) (service.CheckResult, error) {
+		if memo != nil {
+			return h.svc.CheckMachineShared(ctx, sr, memo)
+		}
+		return h.svc.CheckMachine(ctx, sr)
+	})
 	if err != nil {
 		return MachineCheckResponse{}, err
 	}

@@ -128,7 +128,7 @@ func (h machineHandler) rateOne(ctx context.Context, req RateRequest) (RateRespo
 	if err != nil {
 		return RateResponse{}, err
 	}
-	r, err := h.svc.RateMachine(ctx, d)
+	r, err := bounded(ctx, h.log, "machine rating", func(ctx context.Context) (service.Rating, error) { return h.svc.RateMachine(ctx, d) })
 	if err != nil {
 		return RateResponse{}, err
 	}
@@ -233,7 +233,7 @@ func (h machineHandler) mapOne(ctx context.Context, req MapRequest) (MapResponse
 	if err != nil {
 		return MapResponse{}, err
 	}
-	m, err := h.svc.MapMachine(ctx, d)
+	m, err := bounded(ctx, h.log, "machine map", func(ctx context.Context) (service.Map, error) { return h.svc.MapMachine(ctx, d) })
 	if err != nil {
 		return MapResponse{}, err
 	}

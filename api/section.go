@@ -51,7 +51,7 @@ func (h sectionHandler) size(c *gin.Context) {
 		fail(c, h.log, err)
 		return
 	}
-	res, err := h.svc.SizeSection(c.Request.Context(), duty)
+	res, err := bounded(c.Request.Context(), h.log, "section sizing", func(ctx context.Context) (service.SectionResult, error) { return h.svc.SizeSection(ctx, duty) })
 	if err != nil {
 		fail(c, h.log, err)
 		return
