@@ -138,13 +138,14 @@ func TestMachineHostileInputs(t *testing.T) {
 }
 
 // TestMapDefaultSpeedErrorNamesSpeeds: a regeneration blower whose
-// datasheet design flow is typed as 0.5 m3/s cannot be mapped at the
-// default 70 % line; the caller sent no speeds, so the problem points at
-// /speeds and says which default line failed, not at /speeds/0, which the
-// request does not have.
+// datasheet design flow is typed as twice its own (5 m3/s) cannot be
+// mapped at the default 70 % line; the caller sent no speeds, so the
+// problem points at /speeds and says which default line failed, not at
+// /speeds/0, which the request does not have.
 func TestMapDefaultSpeedErrorNamesSpeeds(t *testing.T) {
 	body := machineRequest(t, "machines/kestrel-regen-blower.map.in.json", func(m map[string]any) {
-		firstStageDesign(m)["volume_flow"] = 0.5
+		d := firstStageDesign(m)
+		d["volume_flow"] = 2 * d["volume_flow"].(float64)
 		delete(m, "speeds")
 	})
 	w := postMap(newRouter(t), body, "")
@@ -152,4 +153,20 @@ func TestMapDefaultSpeedErrorNamesSpeeds(t *testing.T) {
 	require.NotEmpty(t, p.Errors)
 	assert.Equal(t, "/speeds", p.Errors[0].Pointer)
 	assert.Contains(t, p.Errors[0].Detail, "default speed line at 70 %")
+}
+
+// TestMachineDesignNearTangential: a design volume flow typed far too
+// small for the impeller (0.1 m3/s for the regeneration blower) puts the
+// design exit flow almost tangential; the surge criterion has no meaning
+// there, and the machine is refused on its design volume flow instead of
+// failing later with a negative surge flow.
+func TestMachineDesignNearTangential(t *testing.T) {
+	body := machineRequest(t, "machines/kestrel-regen-blower.map.in.json", func(m map[string]any) {
+		firstStageDesign(m)["volume_flow"] = 0.1
+	})
+	w := postMap(newRouter(t), body, "")
+	p := requireProblem(t, w, http.StatusUnprocessableEntity, "unprocessable")
+	require.NotEmpty(t, p.Errors)
+	assert.Equal(t, "/machine/stages/0/design/volume_flow", p.Errors[0].Pointer, "detail: %s", p.Errors[0].Detail)
+	assert.Contains(t, p.Errors[0].Detail, "from radial")
 }

@@ -30,6 +30,11 @@ const (
 	// diffuser-inlet angle above the design angle, deg (a stage is not
 	// designed to run at surge; common practice, no source).
 	surgeAngleClearance = 5.0
+	// maxSurgeFlowAngle bounds the critical diffuser-inlet angle, deg from
+	// radial: at 90 deg the flow would be tangential and the surge
+	// criterion cr2 = σU2/(tan α2c + tan β2') meaningless (a design flow
+	// typed a tenth too small once gave a negative surge flow).
+	maxSurgeFlowAngle = 88.0
 	// defaultDiffuserChokeFraction is the design flow over the vaned
 	// diffuser throat's sonic flow when the throat area is not given
 	// (common practice, no source).
@@ -352,6 +357,11 @@ func (s *Service) prepareStage(m Machine, i int, prov *Provenance) (preparedStag
 		return ps, fieldErr(f+".design", fmt.Errorf("the stage as built cannot pass its design flow at its design speed: %w", err))
 	}
 	ps.design = dp
+	if dp.ExitFlowAngle+surgeAngleClearance >= maxSurgeFlowAngle {
+		return ps, fieldErr(f+".design.volume_flow", reason("volume_flow", fmt.Sprintf(
+			"at the design flow (%.5g m3/s) the flow leaves the impeller %.1f deg from radial, almost tangential: a stage as built cannot be designed there (it would be past any surge estimate); check the design volume flow against the exit width and tip diameter",
+			d.VolumeFlow, dp.ExitFlowAngle), d.VolumeFlow))
+	}
 	st.Design.SurgeFlowAngle = math.Max(offdesign.DefaultSurgeFlowAngle, dp.ExitFlowAngle+surgeAngleClearance)
 	if st.Design.SurgeFlowAngle > offdesign.DefaultSurgeFlowAngle {
 		prov.Defaults = append(prov.Defaults, Default{Field: f + ".surge_flow_angle", Value: strconv.FormatFloat(st.Design.SurgeFlowAngle, 'f', 2, 64) + " deg",
