@@ -335,12 +335,18 @@ func (l *Line) AtFrom(mdot float64, near *Point) (Point, error) {
 	if near != nil {
 		near2 = near.Compression.Discharge.Pressure
 	}
+	// The path end of the previous pass: a pass changes only the work, so
+	// the next Newton solve, which starts at that pass's pressure, takes
+	// the path already integrated there.
+	var end path.End
+	var prevEnd *path.End
 	for outer := 0; ; outer++ {
 		ex, cr2, err = l.exitFixedPoint(mdot, cr2, etaS, u1, ct1, tanB, psi, sigma)
 		if err != nil {
 			return Point{}, err
 		}
-		comp, err = path.CompressionForWorkNear(m, st, physics.JoulePerKg(ex.w), eff, s.Method, near2)
+		comp, end, err = path.CompressionForWorkFrom(m, st, physics.JoulePerKg(ex.w), eff, s.Method, near2, prevEnd)
+		prevEnd = &end
 		if err != nil {
 			return Point{}, fmt.Errorf("compression at %.6g J/kg: %w", ex.w, err)
 		}

@@ -183,15 +183,53 @@ func CompressionForWork(m gas.Model, suction gas.State, w physics.JoulePerKg, ef
 // Newton steps in ln p2 then start next to the root. Same result to the
 // solver tolerance; same sources and validity.
 func CompressionForWorkNear(m gas.Model, suction gas.State, w physics.JoulePerKg, eff Efficiency, method Method, near physics.Pascal) (Result, error) {
+	r, _, err := compressionForWork(m, suction, w, eff, method, near, nil)
+	return r, err
+}
+
+// End is where a polytropic CompressionForWorkFrom ended: its discharge
+// pressure and the path there, with the suction, efficiency and method
+// it belongs to. The zero value is none.
+type End struct {
+	suction gas.State
+	etaP    float64
+	method  Method
+	end     pathEnd
+}
+
+// CompressionForWorkFrom is CompressionForWorkNear for an iteration that
+// changes only the work: prev is the End of the previous call (nil:
+// none). When prev has the same suction, polytropic efficiency and method
+// and the first Newton step lands on its pressure, that step takes the
+// path prev already integrated instead of integrating it again, which
+// gives the same answer bit for bit (the path at a pressure does not
+// depend on the work). It returns the End of this call. Same sources and
+// validity as CompressionForWork.
+func CompressionForWorkFrom(m gas.Model, suction gas.State, w physics.JoulePerKg, eff Efficiency, method Method, near physics.Pascal, prev *End) (Result, End, error) {
+	var known *pathEnd
+	if prev != nil && eff.Basis == Polytropic && prev.etaP == eff.Value && prev.method == method && prev.suction == suction && prev.end.p2 > 0 {
+		known = &prev.end
+	}
+	r, end, err := compressionForWork(m, suction, w, eff, method, near, known)
+	if err != nil || eff.Basis != Polytropic {
+		return r, End{}, err
+	}
+	return r, End{suction: suction, etaP: eff.Value, method: method, end: end}, nil
+}
+
+// compressionForWork is CompressionForWorkNear with, for a polytropic
+// efficiency, the path end already known at one pressure (nil: none),
+// and the end it arrives at.
+func compressionForWork(m gas.Model, suction gas.State, w physics.JoulePerKg, eff Efficiency, method Method, near physics.Pascal, known *pathEnd) (Result, pathEnd, error) {
 	if err := checkModel(m, suction); err != nil {
-		return Result{}, err
+		return Result{}, pathEnd{}, err
 	}
 	if !(w > 0) || math.IsInf(float64(w), 1) {
-		return Result{}, &physics.DomainError{Name: "work", Value: float64(w), Want: "finite, > 0 J/kg",
+		return Result{}, pathEnd{}, &physics.DomainError{Name: "work", Value: float64(w), Want: "finite, > 0 J/kg",
 			Reason: "the specific work must be a finite number above 0 J/kg"}
 	}
 	if err := checkChoice(eff, method); err != nil {
-		return Result{}, err
+		return Result{}, pathEnd{}, err
 	}
 	p1 := float64(suction.Pressure)
 	pv1 := p1 / float64(suction.Density)
@@ -201,29 +239,31 @@ func CompressionForWorkNear(m gas.Model, suction gas.State, w physics.JoulePerKg
 		guess := p1 * math.Exp(math.Min(eff.Value*float64(w)/pv1, 20))
 		st, err := gas.StateFromHS(m, h2s, suction.Entropy, physics.Pascal(guess))
 		if err != nil {
-			return Result{}, fmt.Errorf("discharge pressure for %.6g J/kg: %w", float64(w), err)
+			return Result{}, pathEnd{}, fmt.Errorf("discharge pressure for %.6g J/kg: %w", float64(w), err)
 		}
 		p2 = float64(st.Pressure)
 	} else {
-		end, err := polytropicPressure(m, suction, float64(w), eff.Value, method, float64(near))
+		end, err := polytropicPressure(m, suction, float64(w), eff.Value, method, float64(near), known)
 		if err != nil {
-			return Result{}, err
+			return Result{}, pathEnd{}, err
 		}
 		if !(end.p2 > suction.Pressure) {
-			return Result{}, pressureNotAbove(end.p2)
+			return Result{}, pathEnd{}, pressureNotAbove(end.p2)
 		}
-		return compression(m, suction, end.p2, eff, method, &end)
+		r, err := compression(m, suction, end.p2, eff, method, &end)
+		return r, end, err
 	}
 	if !(p2 > p1) {
-		return Result{}, pressureNotAbove(physics.Pascal(p2))
+		return Result{}, pathEnd{}, pressureNotAbove(physics.Pascal(p2))
 	}
-	return Compression(m, suction, physics.Pascal(p2), eff, method)
+	r, err := Compression(m, suction, physics.Pascal(p2), eff, method)
+	return r, pathEnd{}, err
 }
 
 // polytropicPressure finds p2 with h2(p2) − h1 = w along the polytropic
 // path of the method, by Newton steps in u = ln(p2/p1), and returns the
 // path's end there.
-func polytropicPressure(m gas.Model, suction gas.State, w, etaP float64, method Method, near float64) (pathEnd, error) {
+func polytropicPressure(m gas.Model, suction gas.State, w, etaP float64, method Method, near float64, known *pathEnd) (pathEnd, error) {
 	p1 := float64(suction.Pressure)
 	pv1 := p1 / float64(suction.Density)
 	// Isothermal perfect-gas estimate, an upper bound of the ratio: Hp = pv ln pr.
@@ -233,8 +273,11 @@ func polytropicPressure(m gas.Model, suction gas.State, w, etaP float64, method 
 	}
 	for range 40 {
 		p2 := physics.Pascal(p1 * math.Exp(u))
-		end, err := dischargeAt(m, suction, p2, etaP, method)
-		if err != nil {
+		var end pathEnd
+		var err error
+		if known != nil && known.p2 == p2 {
+			end, known = *known, nil // the path there is already integrated
+		} else if end, err = dischargeAt(m, suction, p2, etaP, method); err != nil {
 			return pathEnd{}, err
 		}
 		dis := end.dis
