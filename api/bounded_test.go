@@ -46,4 +46,5 @@ func TestComputeDeadlineWithAStuckStep(t *testing.T) {
 		return len(logs.lines(t, "computation ran on after its request had ended (compute deadline or client gone)")) == 1
 	},
 		2*time.Second, 5*time.Millisecond)
+	assert.Equal(t, "machine rating", logs.lines(t, "computation ran on after its request had ended (compute deadline or client gone)")[0]["what"])
 }
