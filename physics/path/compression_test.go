@@ -181,6 +181,42 @@ func TestCompressionForWork(t *testing.T) {
 	}
 }
 
+// TestCompressionForWorkFromIsBitIdentical: an iteration that carries the
+// previous call's End (the off-design passes of a rated point) gets the
+// very same result as one that does not, bit for bit, for both methods, a
+// real-gas model and works on both sides of the previous one; an End of
+// another efficiency is not taken. This pins the reuse as a saving of
+// work only (the path at a pressure does not depend on the work).
+func TestCompressionForWorkFromIsBitIdentical(t *testing.T) {
+	m := co2Virial()
+	s1 := suctionState(t, m, 310, 2e6)
+	for _, method := range methods {
+		eff := path.Efficiency{Basis: path.Polytropic, Value: 0.8}
+		fwd, err := path.Compression(m, s1, 6e6, eff, method)
+		require.NoError(t, err)
+		r0, end, err := path.CompressionForWorkFrom(m, s1, fwd.Work, eff, method, 0, nil)
+		require.NoError(t, err)
+		near := r0.Discharge.Pressure
+		p1 := float64(s1.Pressure)
+		require.Equal(t, path.EndPressure(end), physics.Pascal(p1*math.Exp(math.Log(float64(near)/p1))),
+			"the first Newton step must land on the End's pressure, or the reuse is not exercised")
+		for _, f := range []float64{1, 1 + 1e-7, 1 - 1e-4, 1.01} {
+			w := fwd.Work * physics.JoulePerKg(f)
+			want, err := path.CompressionForWorkNear(m, s1, w, eff, method, near)
+			require.NoError(t, err)
+			got, _, err := path.CompressionForWorkFrom(m, s1, w, eff, method, near, &end)
+			require.NoError(t, err)
+			assert.Equal(t, want, got, "%s, work x %g", method, f)
+			other := path.Efficiency{Basis: path.Polytropic, Value: 0.75}
+			want, err = path.CompressionForWorkNear(m, s1, w, other, method, near)
+			require.NoError(t, err)
+			got, _, err = path.CompressionForWorkFrom(m, s1, w, other, method, near, &end)
+			require.NoError(t, err)
+			assert.Equal(t, want, got, "%s, other efficiency, work x %g", method, f)
+		}
+	}
+}
+
 // TestErrors has a row for every range check, NaN included; each must
 // unwrap to physics.ErrDomain (design rule, helper-rules.md).
 func TestErrors(t *testing.T) {
