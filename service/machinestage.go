@@ -31,9 +31,10 @@ const (
 	// designed to run at surge; common practice, no source).
 	surgeAngleClearance = 5.0
 	// maxSurgeFlowAngle bounds the critical diffuser-inlet angle, deg from
-	// radial: at 90 deg the flow would be tangential and the surge
-	// criterion cr2 = σU2/(tan α2c + tan β2') meaningless (a design flow
-	// typed a tenth too small once gave a negative surge flow).
+	// radial (common practice, no source): at 90 deg the flow would be
+	// tangential and the surge criterion cr2 = σU2/(tan α2c + tan β2')
+	// meaningless (a blower's design flow typed at a fifth of its own
+	// once gave a negative surge flow).
 	maxSurgeFlowAngle = 88.0
 	// defaultDiffuserChokeFraction is the design flow over the vaned
 	// diffuser throat's sonic flow when the throat area is not given
